@@ -1,0 +1,264 @@
+/**
+ * One entry point for running Selvage locally: `npm start`, `npm test`, `npm run dev`, `npm run bench`.
+ * It starts what each needs (MariaDB, the SMTP fake, the api), stops all of it on Ctrl-C or when
+ * done, and exits non-zero when a step fails.
+ */
+import { ChildProcess, spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { ensureAptPackage, startMariaDb, type RunningMariaDb } from './mariadb';
+
+const ROOT = resolve(__dirname, '..', '..');
+const DATA = join(ROOT, '.data');
+const API = join(ROOT, 'api');
+const WEB = join(ROOT, 'web');
+
+interface Ports {
+  db: number;
+  smtp: number;
+  smtpHttp: number;
+  api: number;
+}
+
+const children = new Set<ChildProcess>();
+const cleanups: (() => Promise<void>)[] = [];
+
+function log(message: string) {
+  console.log(`[stack] ${message}`);
+}
+
+function run(cmd: string, args: string[], env: NodeJS.ProcessEnv, cwd = ROOT): Promise<number> {
+  return new Promise((resolveRun) => {
+    const child = spawn(cmd, args, { cwd, env, stdio: 'inherit' });
+    children.add(child);
+    child.on('exit', (code, signal) => {
+      children.delete(child);
+      resolveRun(code ?? (signal ? 1 : 0));
+    });
+  });
+}
+
+async function mustRun(label: string, cmd: string, args: string[], env: NodeJS.ProcessEnv, cwd = ROOT) {
+  const code = await run(cmd, args, env, cwd);
+  if (code !== 0) throw new Error(`${label} failed (exit ${code})`);
+}
+
+function startBackground(label: string, cmd: string, args: string[], env: NodeJS.ProcessEnv): ChildProcess {
+  const child = spawn(cmd, args, { cwd: ROOT, env, stdio: ['ignore', 'inherit', 'inherit'] });
+  children.add(child);
+  child.on('exit', (code, signal) => {
+    children.delete(child);
+    if (!shuttingDown) log(`${label} stopped (${signal ?? code})`);
+  });
+  cleanups.push(
+    () =>
+      new Promise<void>((r) => {
+        if (child.exitCode !== null || child.signalCode !== null) return r();
+        child.once('exit', () => r());
+        child.kill('SIGTERM');
+        setTimeout(() => child.kill('SIGKILL'), 10_000).unref();
+      }),
+  );
+  return child;
+}
+
+async function waitForHttp(url: string, timeoutMs = 60_000): Promise<void> {
+  const started = Date.now();
+  for (;;) {
+    try {
+      const res = await fetch(url, { signal: AbortSignal.timeout(2000) });
+      if (res.ok) return;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() - started > timeoutMs) throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+let shuttingDown = false;
+async function shutdown(code: number): Promise<never> {
+  if (!shuttingDown) {
+    shuttingDown = true;
+    for (const cleanup of cleanups.reverse()) await cleanup().catch(() => undefined);
+  }
+  process.exit(code);
+}
+
+function persistentSecret(file: string): string {
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  const secret = randomBytes(32).toString('hex');
+  writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+function apiEnv(ports: Ports, dbName: string, dbPassword: string, extra: NodeJS.ProcessEnv = {}): NodeJS.ProcessEnv {
+  return {
+    ...process.env,
+    NODE_ENV: process.env.NODE_ENV ?? 'production',
+    PORT: String(ports.api),
+    APP_ORIGIN: process.env.APP_ORIGIN ?? `http://127.0.0.1:${ports.api}`,
+    DB_HOST: '127.0.0.1',
+    DB_PORT: String(ports.db),
+    DB_NAME: dbName,
+    DB_USER: 'selvage',
+    DB_PASSWORD: dbPassword,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(ports.smtp),
+    SMTP_FAKE_INBOX_URL: `http://127.0.0.1:${ports.smtpHttp}`,
+    MIKRO_ORM_CLI_USE_TS_NODE: '0',
+    ...extra,
+  };
+}
+
+async function startDatabase(dir: string, port: number, name: string, password: string, fresh: boolean) {
+  const db: RunningMariaDb = await startMariaDb({ dataDir: dir, port, database: name, user: 'selvage', password, fresh });
+  cleanups.push(async () => {
+    log('stopping MariaDB');
+    await db.stop();
+  });
+  log(`MariaDB is up on 127.0.0.1:${port} (database ${name})`);
+  return db;
+}
+
+function startSmtpFake(ports: Ports, dir: string) {
+  startBackground('SMTP fake', process.execPath, [join(API, 'dist', 'fakes', 'smtp', 'main.js')], {
+    ...process.env,
+    SMTP_FAKE_PORT: String(ports.smtp),
+    SMTP_FAKE_HTTP_PORT: String(ports.smtpHttp),
+    SMTP_FAKE_DIR: dir,
+  });
+  return waitForHttp(`http://127.0.0.1:${ports.smtpHttp}/health`);
+}
+
+async function migrateAndSeed(env: NodeJS.ProcessEnv, seed: boolean) {
+  const cli = join(API, 'dist', 'src', 'database', 'db-cli.js');
+  await mustRun('migrations', process.execPath, [cli, 'migrate'], env);
+  if (seed) await mustRun('demo seed', process.execPath, [cli, 'seed-if-empty'], env);
+}
+
+function startApi(env: NodeJS.ProcessEnv) {
+  startBackground('api', process.execPath, [join(API, 'dist', 'src', 'main.js')], env);
+  return waitForHttp(`http://127.0.0.1:${env.PORT}/api/health`);
+}
+
+/** `npm start`: the app with its demo data, reusing .data/ between runs. */
+async function start() {
+  mkdirSync(DATA, { recursive: true });
+  const ports: Ports = {
+    db: Number(process.env.DB_PORT ?? 3407),
+    smtp: Number(process.env.SMTP_FAKE_PORT ?? 2525),
+    smtpHttp: Number(process.env.SMTP_FAKE_HTTP_PORT ?? 2580),
+    api: Number(process.env.PORT ?? 3000),
+  };
+  const dbPassword = persistentSecret(join(DATA, 'db-password'));
+  await startDatabase(join(DATA, 'db'), ports.db, 'selvage', dbPassword, false);
+  await startSmtpFake(ports, join(DATA, 'mail'));
+  const env = apiEnv(ports, 'selvage', dbPassword, {
+    SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(join(DATA, 'session-secret')),
+    WEB_DIST_DIR: join(WEB, 'dist'),
+  });
+  await migrateAndSeed(env, true);
+  await startApi(env);
+  log(`Selvage is ready: ${env.APP_ORIGIN}  (demo accounts in README.md; Ctrl-C stops everything)`);
+  await new Promise(() => undefined);
+}
+
+/** `npm run dev`: MariaDB and the SMTP fake as for start, then the api in watch mode and Vite. */
+async function dev() {
+  mkdirSync(DATA, { recursive: true });
+  const ports: Ports = { db: 3407, smtp: 2525, smtpHttp: 2580, api: Number(process.env.PORT ?? 3000) };
+  const dbPassword = persistentSecret(join(DATA, 'db-password'));
+  await mustRun('api build', 'npm', ['run', 'build', '-w', 'api'], process.env);
+  await startDatabase(join(DATA, 'db'), ports.db, 'selvage', dbPassword, false);
+  await startSmtpFake(ports, join(DATA, 'mail'));
+  const env = apiEnv(ports, 'selvage', dbPassword, {
+    NODE_ENV: 'development',
+    SESSION_SECRET: persistentSecret(join(DATA, 'session-secret')),
+    EXTRA_ORIGINS: 'http://127.0.0.1:5173,http://localhost:5173',
+  });
+  await migrateAndSeed(env, true);
+  startBackground('api (watch)', 'npx', ['tsx', 'watch', join(API, 'src', 'main.ts')], env);
+  startBackground('vite', 'npm', ['run', 'dev', '-w', 'web', '--', '--host', '127.0.0.1'], { ...process.env, API_PORT: String(ports.api) });
+  log('api on :3000, web on http://127.0.0.1:5173 (Ctrl-C stops everything)');
+  await new Promise(() => undefined);
+}
+
+/** `npm test`: its own MariaDB and ports, every test tier, then everything stopped. */
+async function test() {
+  ensureAptPackage('/usr/bin/chromium', 'chromium');
+  const dir = join(DATA, 'test');
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const ports: Ports = { db: 3417, smtp: 2535, smtpHttp: 2590, api: 3100 };
+  const dbPassword = randomBytes(12).toString('hex');
+  const db = await startDatabase(join(dir, 'db'), ports.db, 'selvage_test', dbPassword, true);
+  db.sql('CREATE DATABASE IF NOT EXISTS selvage_e2e CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;');
+
+  log('type-checking and building');
+  await mustRun('api build', 'npm', ['run', 'build', '-w', 'api'], process.env);
+  await mustRun('api type-check', 'npm', ['run', 'typecheck', '-w', 'api'], process.env);
+  await mustRun('web build', 'npm', ['run', 'build', '-w', 'web'], process.env);
+  await startSmtpFake(ports, join(dir, 'mail'));
+
+  const jestEnv = apiEnv(ports, 'selvage_test', dbPassword, {
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'warn',
+    SESSION_SECRET: randomBytes(32).toString('hex'),
+    OUTBOX_POLL_MS: '100',
+  });
+  await migrateAndSeed(jestEnv, false);
+  const results: [string, number][] = [];
+  log('api unit and e2e tests (jest)');
+  results.push(['api (jest)', await run('npx', ['jest', '--runInBand'], jestEnv, API)]);
+  log('web tests (vitest)');
+  results.push(['web (vitest)', await run('npx', ['vitest', 'run'], process.env, WEB)]);
+
+  log('browser tests (Playwright, Debian chromium) against a freshly seeded database');
+  const e2eEnv = apiEnv(ports, 'selvage_e2e', dbPassword, {
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'warn',
+    SESSION_SECRET: randomBytes(32).toString('hex'),
+    WEB_DIST_DIR: join(WEB, 'dist'),
+    OUTBOX_POLL_MS: '200',
+    // The browser suite signs in many times from one address; the per-account limit still applies.
+    AUTH_ADDRESS_FAILURE_LIMIT: '1000',
+  });
+  await migrateAndSeed(e2eEnv, true);
+  await startApi(e2eEnv);
+  results.push([
+    'browser (playwright)',
+    await run('npx', ['playwright', 'test'], { ...process.env, E2E_BASE_URL: `http://127.0.0.1:${ports.api}` }, WEB),
+  ]);
+
+  console.log('\nSummary:');
+  for (const [name, code] of results) console.log(`  ${code === 0 ? 'passed' : 'FAILED'}  ${name}`);
+  const failed = results.filter(([, code]) => code !== 0).length;
+  console.log(`${results.length - failed} passed, ${failed} failed`);
+  await shutdown(failed ? 1 : 0);
+}
+
+/** `npm run bench`: autocannon against a running api, health vs the signed-in dashboard. */
+async function bench() {
+  await mustRun('bench', 'npx', ['tsx', join(API, 'scripts', 'bench.ts')], process.env);
+}
+
+const commands: Record<string, () => Promise<void>> = { start, dev, test, bench };
+const command = process.argv[2] ?? '';
+if (!commands[command]) {
+  console.error(`usage: stack.ts ${Object.keys(commands).join('|')}`);
+  process.exit(2);
+}
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.once(signal, () => {
+    log(`${signal}: stopping everything`);
+    void shutdown(130);
+  });
+}
+commands[command]()
+  .then(() => shutdown(0))
+  .catch((e: unknown) => {
+    console.error(`[stack] ${e instanceof Error ? e.message : e}`);
+    void shutdown(1);
+  });

@@ -1,0 +1,54 @@
+import { MikroOrmModule } from '@mikro-orm/nestjs';
+import { Module } from '@nestjs/common';
+import { ConfigModule } from '@nestjs/config';
+import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
+import { LoggerModule } from 'nestjs-pino';
+import { AuthModule } from './auth/auth.module';
+import { HttpErrorFilter } from './common/filters/http-error.filter';
+import { AuthenticatedGuard } from './common/guards/authenticated.guard';
+import { GuildAccessGuard } from './common/guards/guild-access.guard';
+import { OriginGuard } from './common/guards/origin.guard';
+import { appConfig, authConfig, mailConfig } from './config/app.config';
+import { validateEnv } from './config/env.validation';
+import { DashboardModule } from './dashboard/dashboard.module';
+import { DevInboxModule } from './dev-inbox/dev-inbox.module';
+import { GuildsModule } from './guilds/guilds.module';
+import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
+import ormConfig from './mikro-orm.config';
+import { OutboxModule } from './outbox/outbox.module';
+import { ProfileModule } from './profile/profile.module';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig] }),
+    LoggerModule.forRoot({
+      pinoHttp: {
+        level: process.env.LOG_LEVEL ?? 'info',
+        redact: ['req.headers.cookie', 'res.headers["set-cookie"]'],
+        autoLogging: { ignore: (req) => req.url === '/api/health' },
+        transport:
+          process.env.NODE_ENV === 'development' ? { target: 'pino-pretty', options: { singleLine: true } } : undefined,
+      },
+    }),
+    MikroOrmModule.forRoot({ ...ormConfig, registerRequestContext: true, autoLoadEntities: false }),
+    ScheduleModule.forRoot(),
+    OutboxModule,
+    AuthModule,
+    GuildsModule,
+    InvitationsModule,
+    ProfileModule,
+    DashboardModule,
+    DevInboxModule,
+    HealthModule,
+  ],
+  providers: [
+    { provide: APP_FILTER, useClass: HttpErrorFilter },
+    // Order matters: refuse cross-site writes, then require a session, then check the guild role.
+    { provide: APP_GUARD, useClass: OriginGuard },
+    { provide: APP_GUARD, useClass: AuthenticatedGuard },
+    { provide: APP_GUARD, useClass: GuildAccessGuard },
+  ],
+})
+export class AppModule {}

@@ -1,0 +1,33 @@
+import { registerAs } from '@nestjs/config';
+
+export const appConfig = registerAs('app', () => ({
+  env: process.env.NODE_ENV ?? 'development',
+  port: Number(process.env.PORT ?? 3000),
+  origin: process.env.APP_ORIGIN as string,
+  extraOrigins: (process.env.EXTRA_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),
+  sessionSecret: process.env.SESSION_SECRET as string,
+  webDistDir: process.env.WEB_DIST_DIR ?? '',
+  trustProxy: process.env.TRUST_PROXY === 'true',
+}));
+
+export const authConfig = registerAs('auth', () => ({
+  accountFailureLimit: Number(process.env.AUTH_ACCOUNT_FAILURE_LIMIT ?? 10),
+  addressFailureLimit: Number(process.env.AUTH_ADDRESS_FAILURE_LIMIT ?? 100),
+  failureWindowMinutes: Number(process.env.AUTH_FAILURE_WINDOW_MINUTES ?? 15),
+}));
+
+export const mailConfig = registerAs('mail', () => ({
+  host: process.env.SMTP_HOST ?? '127.0.0.1',
+  port: Number(process.env.SMTP_PORT),
+  secure: process.env.SMTP_SECURE === 'true',
+  user: process.env.SMTP_USER ?? '',
+  password: process.env.SMTP_PASSWORD ?? '',
+  from: process.env.MAIL_FROM ?? 'Selvage <no-reply@selvage.invalid>',
+  fakeInboxUrl: process.env.SMTP_FAKE_INBOX_URL ?? '',
+  pollMs: Number(process.env.OUTBOX_POLL_MS ?? 1000),
+  workerEnabled: process.env.OUTBOX_ENABLED !== 'false',
+}));
+
+export type AppConfig = ReturnType<typeof appConfig>;
+export type AuthConfig = ReturnType<typeof authConfig>;
+export type MailConfig = ReturnType<typeof mailConfig>;

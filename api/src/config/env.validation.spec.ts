@@ -1,0 +1,24 @@
+import { validateEnv } from './env.validation';
+
+describe('validateEnv', () => {
+  it('lists every missing or wrong variable at once', () => {
+    expect(() => validateEnv({ PORT: 'eighty', APP_ORIGIN: 'not a url' })).toThrow(
+      /PORT must be a number[\s\S]*APP_ORIGIN must be a valid uri[\s\S]*SESSION_SECRET is required[\s\S]*DB_PORT is required/,
+    );
+  });
+
+  it('fills defaults for a complete set', () => {
+    const env = validateEnv({
+      APP_ORIGIN: 'http://127.0.0.1:3000',
+      SESSION_SECRET: 'x'.repeat(32),
+      DB_PORT: '3407',
+      DB_NAME: 'selvage',
+      DB_USER: 'selvage',
+      DB_PASSWORD: 'pw',
+      SMTP_PORT: '2525',
+    });
+    expect(env.PORT).toBe(3000);
+    expect(env.DB_PORT).toBe(3407);
+    expect(env.AUTH_ACCOUNT_FAILURE_LIMIT).toBe(10);
+  });
+});

@@ -1,0 +1,194 @@
+import { LockMode } from '@mikro-orm/core';
+import { EntityManager } from '@mikro-orm/mariadb';
+import {
+  BadRequestException,
+  ConflictException,
+  ForbiddenException,
+  Inject,
+  Injectable,
+  NotFoundException,
+} from '@nestjs/common';
+import { hashPassword, normaliseEmail } from '../auth/passwords';
+import type { SessionUser } from '../auth/session-user';
+import { hashToken, newToken } from '../auth/tokens';
+import { appConfig, type AppConfig } from '../config/app.config';
+import { Guild } from '../guilds/guild.entity';
+import { Membership } from '../guilds/membership.entity';
+import { normaliseRoles, type Role } from '../guilds/roles';
+import { OutboxService } from '../outbox/outbox.service';
+import { User } from '../users/user.entity';
+import { Invitation } from './invitation.entity';
+
+export const INVITATION_VALID_DAYS = 14;
+
+const GONE = 'This invitation link has expired, was already used, or was withdrawn. Ask the guild for a new one.';
+
+@Injectable()
+export class InvitationsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly outbox: OutboxService,
+    @Inject(appConfig.KEY) private readonly app: AppConfig,
+  ) {}
+
+  async listPending(guild: Guild) {
+    const rows = await this.em.find(
+      Invitation,
+      { guild, acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
+      { populate: ['invitedBy'], orderBy: { createdAt: 'desc' } },
+    );
+    return rows.map((i) => ({
+      id: i.id,
+      email: i.email,
+      roles: i.roles,
+      invitedByName: i.invitedBy?.name ?? null,
+      createdAt: i.createdAt,
+      expiresAt: i.expiresAt,
+    }));
+  }
+
+  async invite(inviter: Membership, invitedBy: SessionUser, rawEmail: string, roles: Role[] = []) {
+    const email = normaliseEmail(rawEmail);
+    return this.em.transactional(async (em) => {
+      const guild = inviter.guild;
+      // Serialise invitations to one guild so two officers cannot invite the same person twice.
+      await em.findOneOrFail(Guild, { id: guild.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const existing = await em.findOne(Membership, { guild, user: { email }, status: 'active' });
+      if (existing) throw new ConflictException(`${email} is already a member of ${guild.name}.`);
+      const pending = await em.findOne(Invitation, {
+        guild,
+        email,
+        acceptedAt: null,
+        revokedAt: null,
+        expiresAt: { $gt: new Date() },
+      });
+      if (pending)
+        throw new ConflictException(
+          `${email} already has an invitation waiting. Withdraw it first if you want to send a new one.`,
+        );
+      const { token, hash } = newToken();
+      const expiresAt = new Date(Date.now() + INVITATION_VALID_DAYS * 24 * 60 * 60 * 1000);
+      const invitation = em.create(Invitation, {
+        guild,
+        email,
+        roles: normaliseRoles(roles),
+        tokenHash: hash,
+        invitedBy: invitedBy.id,
+        expiresAt,
+      });
+      await em.flush();
+      await this.outbox.enqueue(em, {
+        idempotencyKey: `invitation:${invitation.id}`,
+        template: 'invitation',
+        to: email,
+        context: {
+          inviteeEmail: email,
+          guildName: guild.name,
+          invitedByName: invitedBy.name,
+          acceptUrl: `${this.app.origin}/invitations/${token}`,
+          expiresOn: expiresAt.toLocaleDateString('en-US', {
+            dateStyle: 'long',
+            timeZone: guild.timeZone,
+          }),
+        },
+      });
+      return {
+        id: invitation.id,
+        email,
+        roles: invitation.roles,
+        invitedByName: invitedBy.name,
+        createdAt: invitation.createdAt,
+        expiresAt,
+      };
+    });
+  }
+
+  async revoke(guild: Guild, invitationId: number): Promise<void> {
+    const n = await this.em.nativeUpdate(
+      Invitation,
+      { id: invitationId, guild, acceptedAt: null, revokedAt: null },
+      { revokedAt: new Date() },
+    );
+    if (n !== 1) throw new NotFoundException('No such pending invitation.');
+  }
+
+  private async findUsable(em: EntityManager, token: string): Promise<Invitation> {
+    const invitation = await em.findOne(
+      Invitation,
+      { tokenHash: hashToken(token) },
+      { populate: ['guild', 'invitedBy'] },
+    );
+    if (!invitation || invitation.acceptedAt || invitation.revokedAt || invitation.expiresAt < new Date())
+      throw new NotFoundException(GONE);
+    return invitation;
+  }
+
+  async describe(token: string) {
+    const invitation = await this.findUsable(this.em, token);
+    const hasAccount = (await this.em.count(User, { email: invitation.email })) > 0;
+    return {
+      guildName: invitation.guild.name,
+      guildTown: invitation.guild.town,
+      email: invitation.email,
+      invitedByName: invitation.invitedBy?.name ?? null,
+      hasAccount,
+      expiresAt: invitation.expiresAt,
+    };
+  }
+
+  /** Returns the user to sign in (a new account) or the signed-in user who accepted. */
+  async accept(
+    token: string,
+    signedIn: SessionUser | undefined,
+    details: { name?: string; password?: string },
+  ): Promise<{ user: SessionUser; guildId: number; created: boolean }> {
+    const passwordHash = details.password ? await hashPassword(details.password) : undefined;
+    return this.em.transactional(async (em) => {
+      const invitation = await this.findUsable(em, token);
+      let user = await em.findOne(User, { email: invitation.email });
+      let created = false;
+      if (user) {
+        if (!signedIn)
+          throw new ForbiddenException(`You already have an account. Sign in as ${invitation.email} to accept.`);
+        if (signedIn.id !== user.id)
+          throw new ForbiddenException(
+            `This invitation is for ${invitation.email}. Sign out, then sign in with that address to accept.`,
+          );
+      } else {
+        if (signedIn && signedIn.email !== invitation.email)
+          throw new ForbiddenException(
+            `This invitation is for ${invitation.email}. Sign out first, then open the link again.`,
+          );
+        const errors: Record<string, string[]> = {};
+        if (!details.name?.trim()) errors.name = ['Enter your name.'];
+        if (!passwordHash) errors.password = ['Choose a password of at least 10 characters.'];
+        if (Object.keys(errors).length)
+          throw new BadRequestException({ message: 'Please check the highlighted fields.', errors });
+        user = em.create(User, { email: invitation.email, name: details.name!.trim(), passwordHash: passwordHash! });
+        created = true;
+      }
+      // Single use: only the request that still sees it unaccepted goes on.
+      const claimed = await em.nativeUpdate(
+        Invitation,
+        { id: invitation.id, acceptedAt: null, revokedAt: null },
+        { acceptedAt: new Date() },
+      );
+      if (claimed !== 1) throw new NotFoundException(GONE);
+      const membership = await em.findOne(Membership, { guild: invitation.guild, user });
+      if (membership) {
+        membership.status = 'active';
+        membership.roles = normaliseRoles([...membership.roles, ...invitation.roles]);
+      } else {
+        em.create(Membership, { user, guild: invitation.guild, roles: invitation.roles, joinedAt: new Date() });
+      }
+      await em.flush();
+      await this.outbox.enqueue(em, {
+        idempotencyKey: `welcome:${invitation.id}`,
+        template: 'welcome',
+        to: user.email,
+        context: { name: user.name, guildName: invitation.guild.name, dashboardUrl: `${this.app.origin}/` },
+      });
+      return { user: { id: user.id, email: user.email, name: user.name }, guildId: invitation.guild.id, created };
+    });
+  }
+}

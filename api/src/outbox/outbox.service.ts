@@ -1,0 +1,44 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { Injectable } from '@nestjs/common';
+import { renderEmail, type EmailTemplateName } from '../mail/mail-templates';
+import { OutboxMessage } from './outbox-message.entity';
+
+export interface OutgoingEmail {
+  /** Unique per real-world message, e.g. `invitation:42`; a repeat is silently ignored. */
+  idempotencyKey: string;
+  template: EmailTemplateName;
+  to: string;
+  context: Record<string, unknown>;
+  headers?: Record<string, string>;
+}
+
+@Injectable()
+export class OutboxService {
+  /**
+   * Writes the message with the caller's EntityManager, so it commits or rolls back with the
+   * change that caused it. Call inside `em.transactional`.
+   */
+  async enqueue(em: EntityManager, email: OutgoingEmail): Promise<void> {
+    const { subject, html, text } = renderEmail(email.template, email.context);
+    const now = new Date();
+    await em
+      .createQueryBuilder(OutboxMessage)
+      .insert({
+        idempotencyKey: email.idempotencyKey,
+        template: email.template,
+        toAddress: email.to,
+        subject,
+        html,
+        text,
+        headers: email.headers ?? null,
+        status: 'pending',
+        attempts: 0,
+        nextAttemptAt: now,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .onConflict('idempotency_key')
+      .ignore()
+      .execute();
+  }
+}

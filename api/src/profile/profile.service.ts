@@ -1,0 +1,52 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { BadRequestException, ConflictException, Injectable } from '@nestjs/common';
+import { hashPassword, normaliseEmail, verifyPassword } from '../auth/passwords';
+import type { SessionUser } from '../auth/session-user';
+import { User } from '../users/user.entity';
+
+const WRONG_CURRENT = { message: 'Please check the highlighted fields.', errors: { currentPassword: ['That is not your current password.'] } };
+
+@Injectable()
+export class ProfileService {
+  constructor(private readonly em: EntityManager) {}
+
+  private toDto(u: User): SessionUser {
+    return { id: u.id, email: u.email, name: u.name };
+  }
+
+  async get(id: number): Promise<SessionUser> {
+    return this.toDto(await this.em.findOneOrFail(User, { id }));
+  }
+
+  async rename(id: number, name: string): Promise<SessionUser> {
+    const user = await this.em.findOneOrFail(User, { id });
+    user.name = name.trim();
+    await this.em.flush();
+    return this.toDto(user);
+  }
+
+  private async checkCurrent(id: number, password: string): Promise<User> {
+    const user = await this.em.findOneOrFail(User, { id }, { populate: ['passwordHash'] });
+    if (!(await verifyPassword(user.passwordHash, password))) throw new BadRequestException(WRONG_CURRENT);
+    return user;
+  }
+
+  async changeEmail(id: number, rawEmail: string, currentPassword: string): Promise<SessionUser> {
+    const email = normaliseEmail(rawEmail);
+    const user = await this.checkCurrent(id, currentPassword);
+    if (email !== user.email && (await this.em.count(User, { email })) > 0)
+      throw new ConflictException({
+        message: 'Please check the highlighted fields.',
+        errors: { email: ['Another account already uses that address.'] },
+      });
+    user.email = email;
+    await this.em.flush();
+    return this.toDto(user);
+  }
+
+  async changePassword(id: number, currentPassword: string, newPassword: string): Promise<void> {
+    const user = await this.checkCurrent(id, currentPassword);
+    user.passwordHash = await hashPassword(newPassword);
+    await this.em.flush();
+  }
+}

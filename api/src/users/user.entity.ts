@@ -1,0 +1,19 @@
+import { Entity, Property, Unique } from '@mikro-orm/core';
+import { BaseEntity } from '../database/base.entity';
+
+@Entity({ tableName: 'users' })
+export class User extends BaseEntity {
+  /** Stored lower-cased and trimmed; one account per address. */
+  @Property({ type: 'string', length: 254 })
+  @Unique()
+  email!: string;
+
+  @Property({ type: 'string', length: 120 })
+  name!: string;
+
+  @Property({ type: 'string', length: 255, hidden: true, lazy: true })
+  passwordHash!: string;
+
+  @Property({ type: 'datetime', length: 3, nullable: true })
+  lastSignInAt?: Date | null;
+}
