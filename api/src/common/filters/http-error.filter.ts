@@ -28,6 +28,9 @@ export class HttpErrorFilter implements ExceptionFilter {
       if (typeof response === 'string') return { statusCode: status, message: response };
       const r = response as { message?: unknown; errors?: Record<string, string[]> };
       const message = Array.isArray(r.message) ? r.message.join('; ') : String(r.message ?? exception.message);
+      // Nest turns body-parser's SyntaxError into a 400 carrying the parser's own wording.
+      if (status === 400 && !r.errors && /JSON/.test(message) && /position|Unexpected|end of/i.test(message))
+        return { statusCode: 400, message: 'The request body is not valid JSON.' };
       return r.errors ? { statusCode: status, message, errors: r.errors } : { statusCode: status, message };
     }
     // body-parser errors carry their own status (malformed JSON, body too large, bad charset).

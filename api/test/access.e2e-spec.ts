@@ -1,0 +1,159 @@
+import request from 'supertest';
+import { Invitation } from '../src/invitations/invitation.entity';
+import { client, createScenario, createTestApp, signIn, TestApp } from './helpers';
+
+/**
+ * Who may call what. Every route the router holds must appear here; a new route without an entry
+ * fails this test, so access is decided on purpose, never by accident.
+ * - public: anyone; signed-in: any account; member: any member of the route's guild;
+ * - a list of roles: members holding one of them (admins hold every right in their guild).
+ */
+type Access = 'public' | 'signed-in' | 'member' | readonly ('admin' | 'treasurer' | 'membership_chair' | 'show_chair')[];
+
+const ACCESS: Record<string, Access> = {
+  'GET /api/health': 'public',
+  'GET /api/meta': 'public',
+  'GET /api/docs': 'public',
+  'GET /api/docs/*': 'public', // the documentation page's own scripts and styles
+  'GET /api/docs-json': 'public',
+  'GET /api/docs-yaml': 'public',
+  'GET /api/auth/me': 'public',
+  'POST /api/auth/sign-in': 'public',
+  'POST /api/auth/sign-out': 'signed-in',
+  'POST /api/auth/forgot-password': 'public',
+  'POST /api/auth/reset-password': 'public',
+  'GET /api/invitations/:token': 'public',
+  'POST /api/invitations/:token/accept': 'public',
+  'GET /api/dev/inbox': 'public',
+  'GET /api/dev/inbox/:id': 'public',
+  'GET /api/dashboard': 'signed-in',
+  'GET /api/profile': 'signed-in',
+  'PATCH /api/profile': 'signed-in',
+  'POST /api/profile/email': 'signed-in',
+  'POST /api/profile/password': 'signed-in',
+  'GET /api/guilds/:guildId': 'member',
+  'GET /api/guilds/:guildId/members': 'member',
+  'PATCH /api/guilds/:guildId/members/:membershipId/roles': ['admin'],
+  'GET /api/guilds/:guildId/invitations': ['admin', 'membership_chair'],
+  'POST /api/guilds/:guildId/invitations': ['admin', 'membership_chair'],
+  'DELETE /api/guilds/:guildId/invitations/:invitationId': ['admin', 'membership_chair'],
+};
+
+interface Layer {
+  route?: { path: string; methods: Record<string, boolean> };
+}
+
+/** Reads the routes from Express itself, not from a list someone keeps by hand. */
+function registeredRoutes(t: TestApp): string[] {
+  const express = t.app.getHttpAdapter().getInstance() as { router: { stack: Layer[] } };
+  const out = new Set<string>();
+  for (const layer of express.router.stack) {
+    if (!layer.route) continue;
+    // Nest's catch-all (every method on /api/{*path}) answers unknown paths with a JSON 404.
+    if (Object.keys(layer.route.methods).length > 5) continue;
+    for (const [method, on] of Object.entries(layer.route.methods))
+      if (on && method !== '_all') out.add(`${method.toUpperCase()} ${layer.route.path}`);
+  }
+  return [...out]
+    .filter((r) => r.split(' ')[1].startsWith('/api'))
+    .map((r) => (r.startsWith('GET /api/docs/') ? 'GET /api/docs/*' : r))
+    .filter((r, i, all) => all.indexOf(r) === i)
+    .sort();
+}
+
+describe('every route against the access table (real MariaDB)', () => {
+  let t: TestApp;
+  let s: Awaited<ReturnType<typeof createScenario>>;
+  let invitationId: number;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    s = await createScenario(t);
+    const admin = await signIn(t, s.admin.email);
+    const inv = await admin.post(`/api/guilds/${s.guild.id}/invitations`).send({ email: `walk.${s.tag}@test.example` });
+    invitationId = inv.body.id;
+  });
+  afterAll(() => t.close());
+
+  it('has an entry for every registered route, and no stale entries', () => {
+    const routes = registeredRoutes(t);
+    expect(routes.length).toBeGreaterThan(15);
+    expect(routes.filter((r) => !(r in ACCESS))).toEqual([]);
+    expect(Object.keys(ACCESS).filter((r) => !routes.includes(r))).toEqual([]);
+  });
+
+  it('lets each kind of caller through only where the table says', async () => {
+    const callers = {
+      signedOut: () => client(t),
+      outsider: () => signIn(t, s.outsider.email),
+      member: () => signIn(t, s.member.email),
+      treasurer: () => signIn(t, s.treasurer.email),
+      membershipChair: () => signIn(t, s.membershipChair.email),
+      showChair: () => signIn(t, s.showChair.email),
+      admin: () => signIn(t, s.admin.email),
+    };
+    const roleOf: Record<string, string | null> = {
+      member: null,
+      treasurer: 'treasurer',
+      membershipChair: 'membership_chair',
+      showChair: 'show_chair',
+      admin: 'admin',
+    };
+    const agents = Object.fromEntries(
+      await Promise.all(Object.entries(callers).map(async ([k, f]) => [k, await f()] as const)),
+    );
+    const failures: string[] = [];
+    for (const route of registeredRoutes(t)) {
+      const [method, path] = route.split(' ');
+      // Mutations get an empty body: guards run before validation, so an allowed caller sees a
+      // 400 (nothing written) and a refused one sees 401/403/404 from the guards.
+      const url = path
+        .replace(':guildId', String(s.guild.id))
+        .replace(':membershipId', String(s.member.membership!.id))
+        .replace(':invitationId', String(invitationId))
+        .replace(':token', 'no-such-token-000000000000')
+        .replace(':id', 'none')
+        .replace('/*', '/index.html');
+      if (route === 'POST /api/auth/sign-out' || route === 'DELETE /api/guilds/:guildId/invitations/:invitationId') continue;
+      const access = ACCESS[route];
+      for (const [who, agent] of Object.entries(agents)) {
+        const res = await (agent as ReturnType<typeof client>)[method.toLowerCase() as 'get'](url).send({});
+        let expected: 'allowed' | 401 | 403 | 404;
+        if (access === 'public') expected = 'allowed';
+        else if (who === 'signedOut') expected = 401;
+        else if (access === 'signed-in') expected = 'allowed';
+        else if (who === 'outsider') expected = 404;
+        else if (access === 'member') expected = 'allowed';
+        else expected = roleOf[who] === 'admin' || access.includes(roleOf[who] as never) ? 'allowed' : 403;
+        const ok =
+          expected === 'allowed'
+            ? ![401, 403].includes(res.status) && !(res.status === 404 && /not a member/.test(res.body?.message ?? ''))
+            : res.status === expected;
+        if (!ok) failures.push(`${route} as ${who}: got ${res.status}, expected ${expected}`);
+      }
+    }
+    expect(failures).toEqual([]);
+  });
+
+  it('checks sign-out and withdrawing an invitation separately, since they change state', async () => {
+    expect((await client(t).post('/api/auth/sign-out')).status).toBe(401);
+    const url = `/api/guilds/${s.guild.id}/invitations/${invitationId}`;
+    expect((await client(t).delete(url)).status).toBe(401);
+    expect((await (await signIn(t, s.outsider.email)).delete(url)).status).toBe(404);
+    expect((await (await signIn(t, s.treasurer.email)).delete(url)).status).toBe(403);
+    expect((await (await signIn(t, s.member.email)).delete(url)).status).toBe(403);
+    expect(await t.orm.em.fork().count(Invitation, { id: invitationId, revokedAt: null })).toBe(1);
+    expect((await (await signIn(t, s.membershipChair.email)).delete(url)).status).toBe(204);
+    const signedIn = await signIn(t, s.member.email);
+    expect((await signedIn.post('/api/auth/sign-out')).status).toBe(204);
+  });
+
+  it('treats a guild id that is not a number like any guild she is not in', async () => {
+    const member = await signIn(t, s.member.email);
+    for (const id of ['abc', '-1', '1.5', '99999999999', '0']) {
+      const res = await member.get(`/api/guilds/${id}/members`);
+      expect(res.status).toBe(404);
+    }
+    expect((await request(t.http).get('/api/guilds/abc/members')).status).toBe(401);
+  });
+});
