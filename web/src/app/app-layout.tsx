@@ -1,0 +1,37 @@
+import { Suspense } from 'react';
+import { Outlet, useNavigate } from 'react-router-dom';
+import { AppShell } from '@/components/layouts/app-shell';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { paths } from '@/config/paths';
+import { useDashboard } from '@/features/dashboard/api/get-dashboard';
+import { useMeta } from '@/features/meta/api/get-meta';
+import { useSignOut, useUser } from '@/lib/auth';
+
+export function AppLayout() {
+  const navigate = useNavigate();
+  const { data: user } = useUser();
+  const signedIn = Boolean(user);
+  const meta = useMeta();
+  const dashboard = useDashboard({ enabled: signedIn });
+  const signOut = useSignOut();
+
+  const guilds = dashboard.data?.guilds ?? [];
+  const guildLinks = guilds.map((g) => ({
+    to: paths.members.getHref(g.id),
+    label: guilds.length === 1 ? 'Members' : `${g.name} members`,
+  }));
+
+  return (
+    <AppShell
+      signedIn={signedIn}
+      guildLinks={guildLinks}
+      showInbox={meta.data?.devInbox === true}
+      signingOut={signOut.isPending}
+      onSignOut={() => signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn.getHref()) })}
+    >
+      <Suspense fallback={<PageSpinner />}>
+        <Outlet />
+      </Suspense>
+    </AppShell>
+  );
+}

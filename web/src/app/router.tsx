@@ -1,0 +1,53 @@
+import { useState, type ComponentType } from 'react';
+import { createBrowserRouter, Outlet, RouterProvider, type RouteObject } from 'react-router-dom';
+import { RouteError } from '@/components/errors/route-error';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { paths } from '@/config/paths';
+import { RequireAuth } from '@/lib/auth';
+import { AppLayout } from './app-layout';
+
+type RouteModule = { default: ComponentType };
+
+const lazyRoute = (load: () => Promise<RouteModule>) => async () => ({ Component: (await load()).default });
+
+function Protected() {
+  return (
+    <RequireAuth>
+      <Outlet />
+    </RequireAuth>
+  );
+}
+
+// Paths in config/paths.ts are absolute; nested routes here use the same strings.
+export const routes: RouteObject[] = [
+  {
+    errorElement: <RouteError />,
+    hydrateFallbackElement: <PageSpinner />,
+    children: [
+      { path: paths.signIn.path, lazy: lazyRoute(() => import('./routes/sign-in')) },
+      { path: paths.forgotPassword.path, lazy: lazyRoute(() => import('./routes/forgot-password')) },
+      { path: paths.resetPassword.path, lazy: lazyRoute(() => import('./routes/reset-password')) },
+      { path: paths.invitation.path, lazy: lazyRoute(() => import('./routes/invitation')) },
+      {
+        element: <AppLayout />,
+        children: [
+          {
+            element: <Protected />,
+            children: [
+              { path: paths.home.path, lazy: lazyRoute(() => import('./routes/dashboard')) },
+              { path: paths.members.path, lazy: lazyRoute(() => import('./routes/members')) },
+              { path: paths.profile.path, lazy: lazyRoute(() => import('./routes/profile')) },
+            ],
+          },
+          { path: paths.devInbox.path, lazy: lazyRoute(() => import('./routes/dev-inbox')) },
+          { path: '*', lazy: lazyRoute(() => import('./routes/not-found')) },
+        ],
+      },
+    ],
+  },
+];
+
+export function AppRouter() {
+  const [router] = useState(() => createBrowserRouter(routes));
+  return <RouterProvider router={router} />;
+}

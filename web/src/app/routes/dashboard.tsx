@@ -1,0 +1,70 @@
+import Card from 'react-bootstrap/Card';
+import Col from 'react-bootstrap/Col';
+import Row from 'react-bootstrap/Row';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { usePageTitle } from '@/components/ui/page-title';
+import { useDashboard } from '@/features/dashboard/api/get-dashboard';
+import { GuildCard } from '@/features/dashboard/components/guild-card';
+import { useUser } from '@/lib/auth';
+
+const comingSoon = [
+  { title: 'Dues — coming soon', text: 'Paying and tracking your guild dues will appear here in a later release.' },
+  { title: 'My bee blocks — coming soon', text: 'The blocks you owe and receive in bee exchanges will appear here.' },
+  { title: 'Quilt show — coming soon', text: 'Entering quilts and volunteering for the show will appear here.' },
+];
+
+export default function DashboardRoute() {
+  usePageTitle('Dashboard');
+  const { data: user } = useUser();
+  const dashboard = useDashboard();
+  const name = dashboard.data?.user.name ?? user?.name ?? '';
+  const firstName = name.split(/\s+/)[0];
+
+  return (
+    <>
+      <div className="page-header">
+        <h1>{firstName ? `Hello, ${firstName}` : 'Hello'}</h1>
+        <p className="lead mb-0">Here is what is happening in your guilds.</p>
+      </div>
+
+      <section aria-labelledby="my-guilds" className="mb-5">
+        <h2 id="my-guilds" className="mb-3">
+          My guilds
+        </h2>
+        {dashboard.isPending && <PageSpinner label="Loading your guilds" />}
+        {dashboard.isError && <ErrorAlert error={dashboard.error} />}
+        {dashboard.data && dashboard.data.guilds.length === 0 && (
+          <p>You are not a member of any guild yet. When a guild officer invites you, the e-mail will bring you here.</p>
+        )}
+        {dashboard.data && dashboard.data.guilds.length > 0 && (
+          <Row xs={1} md={2} xl={3} className="g-3">
+            {dashboard.data.guilds.map((guild) => (
+              <Col key={guild.id}>
+                <GuildCard guild={guild} />
+              </Col>
+            ))}
+          </Row>
+        )}
+      </section>
+
+      <section aria-labelledby="later" className="mb-3">
+        <h2 id="later" className="mb-3">
+          On the way
+        </h2>
+        <Row xs={1} md={3} className="g-3">
+          {comingSoon.map((item) => (
+            <Col key={item.title}>
+              <Card className="coming-soon h-100">
+                <Card.Body>
+                  <h3 className="h5">{item.title}</h3>
+                  <p className="mb-0 text-body-secondary">{item.text}</p>
+                </Card.Body>
+              </Card>
+            </Col>
+          ))}
+        </Row>
+      </section>
+    </>
+  );
+}

@@ -1,0 +1,99 @@
+import { useState } from 'react';
+import Card from 'react-bootstrap/Card';
+import Col from 'react-bootstrap/Col';
+import Row from 'react-bootstrap/Row';
+import { useParams } from 'react-router-dom';
+import { NotFound } from '@/components/errors/not-found';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { usePageTitle } from '@/components/ui/page-title';
+import { OFFICER_INVITE_ROLES, type Role } from '@/config/roles';
+import { dashboardQueryOptions } from '@/features/dashboard/api/get-dashboard';
+import { useGuild } from '@/features/members/api/get-guild';
+import { useMembers, type Member } from '@/features/members/api/get-members';
+import { useUpdateMemberRoles } from '@/features/members/api/update-member-roles';
+import { EditRolesModal } from '@/features/members/components/edit-roles-modal';
+import { InviteMemberForm } from '@/features/members/components/invite-member-form';
+import { MemberList } from '@/features/members/components/member-list';
+import { PendingInvitations } from '@/features/members/components/pending-invitations';
+import { isApiError } from '@/lib/api-client';
+
+export default function MembersRoute() {
+  const { guildId = '' } = useParams();
+  const guild = useGuild(guildId);
+  const members = useMembers(guildId);
+  const updateRoles = useUpdateMemberRoles(guildId, [dashboardQueryOptions().queryKey]);
+  const [editing, setEditing] = useState<Member | null>(null);
+  usePageTitle(guild.data ? `${guild.data.name} members` : 'Members');
+
+  if (guild.isPending) return <PageSpinner label="Loading the guild" />;
+  if (guild.isError) {
+    if (isApiError(guild.error) && guild.error.status === 404) return <NotFound />;
+    return (
+      <>
+        <h1>Member directory</h1>
+        <ErrorAlert error={guild.error} />
+      </>
+    );
+  }
+
+  const myRoles = guild.data.myRoles ?? [];
+  const isAdmin = myRoles.includes('admin');
+  const canInvite = myRoles.some((r) => OFFICER_INVITE_ROLES.includes(r as Role));
+  const count = members.data?.length;
+
+  return (
+    <>
+      <div className="page-header">
+        <h1>{guild.data.name} members</h1>
+        <p className="lead mb-0">{guild.data.town}</p>
+        {canInvite && (
+          <a href="#invite-member" className="btn btn-outline-primary mt-3">
+            Jump to the invitation form
+          </a>
+        )}
+      </div>
+      <Row className="g-4">
+        <Col lg={canInvite ? 7 : 12}>
+          <section aria-labelledby="members-heading">
+            <h2 id="members-heading" className="mb-3">
+              Members{count !== undefined && <span className="text-body-secondary fw-normal"> ({count})</span>}
+            </h2>
+            {members.isPending && <PageSpinner label="Loading members" />}
+            {members.isError && <ErrorAlert error={members.error} />}
+            {members.data && (
+              <MemberList members={members.data} canEditRoles={isAdmin} onEditRoles={setEditing} />
+            )}
+          </section>
+        </Col>
+        {canInvite && (
+          <Col lg={5}>
+            <Card as="section" id="invite-member" tabIndex={-1} aria-labelledby="invite-heading" className="mb-4">
+              <Card.Body>
+                <h2 id="invite-heading" className="h3 mb-3">
+                  Invite a member
+                </h2>
+                <InviteMemberForm guildId={guildId} guildName={guild.data.name} />
+              </Card.Body>
+            </Card>
+            <Card as="section" aria-labelledby="pending-heading">
+              <Card.Body>
+                <h2 id="pending-heading" className="h3 mb-3">
+                  Pending invitations
+                </h2>
+                <PendingInvitations guildId={guildId} />
+              </Card.Body>
+            </Card>
+          </Col>
+        )}
+      </Row>
+      {isAdmin && (
+        <EditRolesModal
+          member={editing}
+          onHide={() => setEditing(null)}
+          onSave={(member, roles) => updateRoles.mutateAsync({ membershipId: member.membershipId, roles })}
+        />
+      )}
+    </>
+  );
+}

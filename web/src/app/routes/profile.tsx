@@ -1,0 +1,56 @@
+import Card from 'react-bootstrap/Card';
+import Col from 'react-bootstrap/Col';
+import Row from 'react-bootstrap/Row';
+import { ErrorAlert } from '@/components/ui/error-alert';
+import { PageSpinner } from '@/components/ui/page-spinner';
+import { usePageTitle } from '@/components/ui/page-title';
+import { useProfile } from '@/features/profile/api/get-profile';
+import { ChangeEmailForm, ChangePasswordForm, NameForm } from '@/features/profile/components/profile-forms';
+import { useUser } from '@/lib/auth';
+
+export default function ProfileRoute() {
+  usePageTitle('Profile');
+  const profile = useProfile();
+  const { data: user } = useUser();
+
+  return (
+    <>
+      <div className="page-header">
+        <h1>Profile</h1>
+        <p className="lead mb-0">Your name, e-mail address and password.</p>
+      </div>
+      <Row xs={1} lg={2} className="g-4">
+        <Col>
+          <Card as="section" aria-labelledby="name-heading" className="mb-4">
+            <Card.Body>
+              <h2 id="name-heading" className="h3 mb-3">
+                Your name
+              </h2>
+              {profile.isPending && <PageSpinner />}
+              {profile.isError && <ErrorAlert error={profile.error} />}
+              {profile.data && <NameForm name={profile.data.name} />}
+            </Card.Body>
+          </Card>
+          <Card as="section" aria-labelledby="email-heading">
+            <Card.Body>
+              <h2 id="email-heading" className="h3 mb-3">
+                E-mail address
+              </h2>
+              <ChangeEmailForm currentEmail={profile.data?.email ?? user?.email} />
+            </Card.Body>
+          </Card>
+        </Col>
+        <Col>
+          <Card as="section" aria-labelledby="password-heading">
+            <Card.Body>
+              <h2 id="password-heading" className="h3 mb-3">
+                Password
+              </h2>
+              <ChangePasswordForm />
+            </Card.Body>
+          </Card>
+        </Col>
+      </Row>
+    </>
+  );
+}

@@ -1,0 +1,196 @@
+import { useField, useFormikContext } from 'formik';
+import { useId, type ReactNode } from 'react';
+import Form from 'react-bootstrap/Form';
+
+function useFieldState(name: string) {
+  const [field, meta, helpers] = useField(name);
+  const { submitCount } = useFormikContext();
+  const error = meta.error && (meta.touched || submitCount > 0) ? String(meta.error) : undefined;
+  return { field, meta, helpers, error };
+}
+
+function describedBy(...ids: Array<string | false | undefined>) {
+  const value = ids.filter(Boolean).join(' ');
+  return value || undefined;
+}
+
+type TextFieldProps = {
+  name: string;
+  label: ReactNode;
+  type?: 'text' | 'email' | 'password';
+  autoComplete?: string;
+  help?: ReactNode;
+  optional?: boolean;
+  inputMode?: 'text' | 'email';
+  autoFocus?: boolean;
+};
+
+export function TextField({ name, label, type = 'text', help, optional, ...inputProps }: TextFieldProps) {
+  const id = useId();
+  const { field, error } = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <Form.Group className="mb-3" controlId={id}>
+      <Form.Label>
+        {label}
+        {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
+      </Form.Label>
+      <Form.Control
+        {...field}
+        {...inputProps}
+        value={field.value ?? ''}
+        type={type}
+        isInvalid={Boolean(error)}
+        aria-invalid={error ? true : undefined}
+        aria-required={optional ? undefined : true}
+        aria-describedby={describedBy(errorId, helpId)}
+      />
+      {error && (
+        <Form.Control.Feedback type="invalid" id={errorId}>
+          {error}
+        </Form.Control.Feedback>
+      )}
+      {help && (
+        <Form.Text id={helpId} className="d-block">
+          {help}
+        </Form.Text>
+      )}
+    </Form.Group>
+  );
+}
+
+type CheckboxFieldProps = {
+  name: string;
+  label: ReactNode;
+  help?: ReactNode;
+};
+
+export function CheckboxField({ name, label, help }: CheckboxFieldProps) {
+  const id = useId();
+  const [field] = useField({ name, type: 'checkbox' });
+  const { error } = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <div className="mb-3">
+      <Form.Check id={id}>
+        <Form.Check.Input
+          {...field}
+          type="checkbox"
+          isInvalid={Boolean(error)}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy(errorId, helpId)}
+        />
+        <Form.Check.Label>{label}</Form.Check.Label>
+      </Form.Check>
+      {error && (
+        <div className="invalid-feedback d-block" id={errorId}>
+          {error}
+        </div>
+      )}
+      {help && (
+        <Form.Text id={helpId} className="d-block">
+          {help}
+        </Form.Text>
+      )}
+    </div>
+  );
+}
+
+export type Option = { value: string; label: string };
+
+type CheckboxGroupFieldProps = {
+  name: string;
+  legend: ReactNode;
+  options: readonly Option[];
+  help?: ReactNode;
+};
+
+export function CheckboxGroupField({ name, legend, options, help }: CheckboxGroupFieldProps) {
+  const id = useId();
+  const { field, helpers, error } = useFieldState(name);
+  const selected: string[] = Array.isArray(field.value) ? field.value : [];
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+
+  const toggle = (value: string, checked: boolean) => {
+    const next = checked ? [...selected, value] : selected.filter((v) => v !== value);
+    // Keep the order of the options so payloads are stable.
+    void helpers.setValue(options.map((o) => o.value).filter((v) => next.includes(v)));
+  };
+
+  return (
+    <fieldset className="mb-3" aria-describedby={describedBy(errorId, helpId)}>
+      <legend className="form-label fs-6 fw-bold mb-1">{legend}</legend>
+      {help && (
+        <Form.Text id={helpId} className="d-block mb-1">
+          {help}
+        </Form.Text>
+      )}
+      {options.map((option) => (
+        <Form.Check key={option.value} id={`${id}-${option.value}`}>
+          <Form.Check.Input
+            type="checkbox"
+            name={name}
+            value={option.value}
+            checked={selected.includes(option.value)}
+            onChange={(e) => toggle(option.value, e.currentTarget.checked)}
+            onBlur={() => void helpers.setTouched(true)}
+            isInvalid={Boolean(error)}
+          />
+          <Form.Check.Label>{option.label}</Form.Check.Label>
+        </Form.Check>
+      ))}
+      {error && (
+        <div className="invalid-feedback d-block" id={errorId}>
+          {error}
+        </div>
+      )}
+    </fieldset>
+  );
+}
+
+type SelectFieldProps = {
+  name: string;
+  label: ReactNode;
+  options: readonly Option[];
+  help?: ReactNode;
+  placeholder?: string;
+};
+
+export function SelectField({ name, label, options, help, placeholder }: SelectFieldProps) {
+  const id = useId();
+  const { field, error } = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <Form.Group className="mb-3" controlId={id}>
+      <Form.Label>{label}</Form.Label>
+      <Form.Select
+        {...field}
+        value={field.value ?? ''}
+        isInvalid={Boolean(error)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(errorId, helpId)}
+      >
+        {placeholder && <option value="">{placeholder}</option>}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </Form.Select>
+      {error && (
+        <Form.Control.Feedback type="invalid" id={errorId}>
+          {error}
+        </Form.Control.Feedback>
+      )}
+      {help && (
+        <Form.Text id={helpId} className="d-block">
+          {help}
+        </Form.Text>
+      )}
+    </Form.Group>
+  );
+}

@@ -1,0 +1,7 @@
+import { useEffect } from 'react';
+
+export function usePageTitle(title: string | undefined) {
+  useEffect(() => {
+    document.title = title ? `${title} · Selvage` : 'Selvage';
+  }, [title]);
+}

@@ -1,0 +1,44 @@
+function withRedirect(path: string, redirectTo?: string | null): string {
+  return redirectTo ? `${path}?redirectTo=${encodeURIComponent(redirectTo)}` : path;
+}
+
+export const paths = {
+  home: {
+    path: '/',
+    getHref: () => '/',
+  },
+  signIn: {
+    path: '/sign-in',
+    getHref: (redirectTo?: string | null) => withRedirect('/sign-in', redirectTo),
+  },
+  forgotPassword: {
+    path: '/forgot-password',
+    getHref: () => '/forgot-password',
+  },
+  resetPassword: {
+    path: '/reset-password',
+    getHref: (token?: string) => (token ? `/reset-password?token=${encodeURIComponent(token)}` : '/reset-password'),
+  },
+  invitation: {
+    path: '/invitations/:token',
+    getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  members: {
+    path: '/guilds/:guildId/members',
+    getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/members`,
+  },
+  profile: {
+    path: '/profile',
+    getHref: () => '/profile',
+  },
+  devInbox: {
+    path: '/dev/inbox',
+    getHref: (messageId?: string) => (messageId ? `/dev/inbox?id=${encodeURIComponent(messageId)}` : '/dev/inbox'),
+  },
+} as const;
+
+// Only follow redirect targets that stay on this site.
+export function safeRedirect(target: string | null | undefined, fallback: string = paths.home.getHref()): string {
+  if (!target || !target.startsWith('/') || target.startsWith('//') || target.startsWith('/\\')) return fallback;
+  return target;
+}

@@ -1,0 +1,26 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { User } from '@/lib/auth';
+
+export type DashboardGuild = {
+  id: number | string;
+  name: string;
+  town: string;
+  roles: string[];
+  status: string;
+  memberCount: number;
+};
+
+export type Dashboard = { user: User; guilds: DashboardGuild[] };
+
+export const getDashboard = (signal?: AbortSignal) => api.get<Dashboard>('/dashboard', signal);
+
+export const dashboardQueryOptions = () =>
+  queryOptions({
+    queryKey: ['dashboard'] as const,
+    queryFn: ({ signal }) => getDashboard(signal),
+  });
+
+export function useDashboard(options: { enabled?: boolean } = {}) {
+  return useQuery({ ...dashboardQueryOptions(), ...options });
+}

@@ -1,0 +1,30 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import { guildQueryOptions } from './get-guild';
+
+export type Member = {
+  membershipId: number | string;
+  name: string;
+  roles: string[];
+  /** Only in the officer view (admin, membership chair). */
+  email?: string;
+  status?: string;
+  joinedAt?: string | null;
+};
+
+type MembersResponse = { members: Member[] } | Member[];
+
+export const getMembers = async (guildId: string, signal?: AbortSignal): Promise<Member[]> => {
+  const data = await api.get<MembersResponse>(`/guilds/${encodeURIComponent(guildId)}/members`, signal);
+  return Array.isArray(data) ? data : (data?.members ?? []);
+};
+
+export const membersQueryOptions = (guildId: string) =>
+  queryOptions({
+    queryKey: [...guildQueryOptions(guildId).queryKey, 'members'] as const,
+    queryFn: ({ signal }) => getMembers(guildId, signal),
+  });
+
+export function useMembers(guildId: string) {
+  return useQuery(membersQueryOptions(guildId));
+}

@@ -1,0 +1,68 @@
+import Badge from 'react-bootstrap/Badge';
+import Button from 'react-bootstrap/Button';
+import Card from 'react-bootstrap/Card';
+import { roleLabel, statusLabel } from '@/config/roles';
+import type { Member } from '../api/get-members';
+
+type MemberListProps = {
+  members: Member[];
+  canEditRoles: boolean;
+  onEditRoles: (member: Member) => void;
+};
+
+function formatJoined(iso: string | null | undefined) {
+  if (!iso) return null;
+  const date = new Date(iso);
+  if (Number.isNaN(date.getTime())) return null;
+  return date.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
+}
+
+export function MemberList({ members, canEditRoles, onEditRoles }: MemberListProps) {
+  if (members.length === 0) return <p>No members yet.</p>;
+  return (
+    <ul className="member-list row row-cols-1 row-cols-md-2 g-3" aria-label="Members">
+      {members.map((member) => {
+        const joined = formatJoined(member.joinedAt);
+        return (
+          <li key={member.membershipId} className="col" data-testid="member-card">
+            <Card className="h-100">
+              <Card.Body className="d-flex flex-column">
+                <h3 className="h5 mb-1">{member.name}</h3>
+                {member.email && (
+                  <p className="mb-1 break-anywhere">
+                    <span className="visually-hidden">E-mail: </span>
+                    <a href={`mailto:${member.email}`}>{member.email}</a>
+                  </p>
+                )}
+                <p className="mb-2">
+                  <span className="visually-hidden">Roles: </span>
+                  {member.roles.length === 0 ? (
+                    <span className="text-body-secondary">Member</span>
+                  ) : (
+                    member.roles.map((role) => (
+                      <Badge key={role} bg="primary" className={`role-badge role-badge-${role} me-1 mb-1`}>
+                        {roleLabel(role)}
+                      </Badge>
+                    ))
+                  )}
+                </p>
+                {(member.status || joined) && (
+                  <p className="mb-2 text-body-secondary">
+                    {member.status && <>Status: {statusLabel(member.status)}</>}
+                    {member.status && joined && ' · '}
+                    {joined && <>Joined {joined}</>}
+                  </p>
+                )}
+                {canEditRoles && (
+                  <Button variant="outline-primary" className="mt-auto align-self-start" onClick={() => onEditRoles(member)}>
+                    Change roles<span className="visually-hidden"> for {member.name}</span>
+                  </Button>
+                )}
+              </Card.Body>
+            </Card>
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
