@@ -69,6 +69,22 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
       { stdio: 'ignore' },
     );
   }
+  const sql = (statement: string) =>
+    execFileSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-N', '-B', '-e', statement], {
+      encoding: 'utf8',
+    });
+  const ping = () => {
+    try {
+      execFileSync('mariadb-admin', ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { stdio: 'ignore' });
+      return true;
+    } catch {
+      return false;
+    }
+  };
+  if (ping())
+    throw new Error(
+      `a MariaDB server already answers on ${socket}: is another npm start or npm test running? Stop it first.`,
+    );
   const log = openSync(join(opts.dataDir, '..', `mariadb-${opts.port}.log`), 'a');
   const child = spawn(
     SERVER,
@@ -87,20 +103,10 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<RunningMariaDb
       '--innodb-log-file-size=16M',
       '--max-connections=300',
     ],
-    { stdio: ['ignore', log, log] },
+    // Its own process group: Ctrl-C reaches our script, which stops the api first and the
+    // database last, instead of every process at once.
+    { stdio: ['ignore', log, log], detached: true },
   );
-  const sql = (statement: string) =>
-    execFileSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-N', '-B', '-e', statement], {
-      encoding: 'utf8',
-    });
-  const ping = () => {
-    try {
-      execFileSync('mariadb-admin', ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { stdio: 'ignore' });
-      return true;
-    } catch {
-      return false;
-    }
-  };
   const started = Date.now();
   while (!ping()) {
     if (!isAlive(child)) throw new Error(`MariaDB did not start; see ${join(opts.dataDir, '..', `mariadb-${opts.port}.log`)}`);

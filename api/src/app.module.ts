@@ -15,6 +15,7 @@ import { DashboardModule } from './dashboard/dashboard.module';
 import { DevInboxModule } from './dev-inbox/dev-inbox.module';
 import { GuildsModule } from './guilds/guilds.module';
 import { HealthModule } from './health/health.module';
+import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import ormConfig from './mikro-orm.config';
 import { OutboxModule } from './outbox/outbox.module';
@@ -42,6 +43,7 @@ import { ProfileModule } from './profile/profile.module';
     DashboardModule,
     DevInboxModule,
     HealthModule,
+    HousekeepingModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },
