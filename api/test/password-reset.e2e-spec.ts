@@ -14,6 +14,7 @@ describe('password reset and profile changes (real MariaDB, SMTP fake)', () => {
 
   it('e-mails a one-hour, single-use link that sets a new password', async () => {
     const email = s.loner.email;
+    const elsewhere = await signIn(t, email);
     const asked = await client(t).post('/api/auth/forgot-password').send({ email });
     expect(asked.status).toBe(202);
     const mail = await waitForMail(email, (m) => /password/i.test(m.subject));
@@ -25,6 +26,8 @@ describe('password reset and profile changes (real MariaDB, SMTP fake)', () => {
 
     const reset = await client(t).post('/api/auth/reset-password').send({ token, password: 'a brand new password' });
     expect(reset.status).toBe(200);
+    // A device signed in with the old password is signed out.
+    expect((await elsewhere.get('/api/dashboard')).status).toBe(401);
     expect((await client(t).post('/api/auth/sign-in').send({ email, password: PASSWORD })).status).toBe(401);
     expect((await client(t).post('/api/auth/sign-in').send({ email, password: 'a brand new password' })).status).toBe(200);
     const reused = await client(t).post('/api/auth/reset-password').send({ token, password: 'another new password' });
@@ -68,8 +71,11 @@ describe('password reset and profile changes (real MariaDB, SMTP fake)', () => {
 
     const badPw = await agent.post('/api/profile/password').send({ currentPassword: 'nope nope', newPassword: 'whatever long enough' });
     expect(badPw.status).toBe(400);
+    const otherDevice = await signIn(t, newEmail);
     const ok = await agent.post('/api/profile/password').send({ currentPassword: PASSWORD, newPassword: 'my second password' });
     expect(ok.status).toBe(200);
+    expect((await otherDevice.get('/api/dashboard')).status).toBe(401);
+    expect((await agent.get('/api/dashboard')).status).toBe(200);
     expect((await client(t).post('/api/auth/sign-in').send({ email: newEmail, password: 'my second password' })).status).toBe(200);
     const renamed = await agent.patch('/api/profile').send({ name: '  Ottilie Test  ' });
     expect(renamed.body.name).toBe('Ottilie Test');

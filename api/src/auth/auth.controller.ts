@@ -1,6 +1,7 @@
-import { Body, Controller, Get, HttpCode, Post, Req, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import type { Request } from 'express';
+import type { Request, Response } from 'express';
+import { SESSION_COOKIE } from '../configure-app';
 import { Public } from '../common/decorators/public.decorator';
 import { AuthService } from './auth.service';
 import { ForgotPasswordDto } from './dto/forgot-password.dto';
@@ -31,9 +32,10 @@ export class AuthController {
 
   @Post('sign-out')
   @HttpCode(204)
-  async signOut(@Req() req: Request): Promise<void> {
+  async signOut(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
     await new Promise<void>((resolve, reject) => req.logOut((err) => (err ? reject(err) : resolve())));
     await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+    res.clearCookie(SESSION_COOKIE, { path: '/' });
   }
 
   @Public()

@@ -2,6 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Inject, Injectable } from '@nestjs/common';
 import { appConfig, type AppConfig } from '../config/app.config';
 import { OutboxService } from '../outbox/outbox.service';
+import { endSessionsOf } from '../sessions/sessions';
 import { User } from '../users/user.entity';
 import { hashPassword, normaliseEmail } from './passwords';
 import { PasswordReset } from './password-reset.entity';
@@ -57,6 +58,8 @@ export class AuthService {
       if (claimed !== 1)
         throw new BadRequestException('This reset link was already used. Ask for a new one from the sign-in page.');
       await em.nativeUpdate(User, { id: reset.user.id }, { passwordHash });
+      // Whoever might have had the old password is signed out everywhere.
+      await endSessionsOf(em, reset.user.id);
     });
   }
 }

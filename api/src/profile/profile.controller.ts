@@ -1,4 +1,5 @@
-import { Body, Controller, Get, HttpCode, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Patch, Post, Req } from '@nestjs/common';
+import type { Request } from 'express';
 import { ApiTags } from '@nestjs/swagger';
 import type { SessionUser } from '../auth/session-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
@@ -28,8 +29,8 @@ export class ProfileController {
 
   @Post('password')
   @HttpCode(200)
-  async changePassword(@CurrentUser() user: SessionUser, @Body() body: ChangePasswordDto) {
-    await this.profile.changePassword(user.id, body.currentPassword, body.newPassword);
+  async changePassword(@CurrentUser() user: SessionUser, @Body() body: ChangePasswordDto, @Req() req: Request) {
+    await this.profile.changePassword(user.id, body.currentPassword, body.newPassword, req.sessionID);
     return { message: 'Your password is changed.' };
   }
 }

@@ -2,6 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, Injectable } from '@nestjs/common';
 import { hashPassword, normaliseEmail, verifyPassword } from '../auth/passwords';
 import type { SessionUser } from '../auth/session-user';
+import { endSessionsOf } from '../sessions/sessions';
 import { User } from '../users/user.entity';
 
 const WRONG_CURRENT = { message: 'Please check the highlighted fields.', errors: { currentPassword: ['That is not your current password.'] } };
@@ -44,9 +45,11 @@ export class ProfileService {
     return this.toDto(user);
   }
 
-  async changePassword(id: number, currentPassword: string, newPassword: string): Promise<void> {
+  /** Changes the password and signs out every other device; this one stays signed in. */
+  async changePassword(id: number, currentPassword: string, newPassword: string, sessionId: string): Promise<void> {
     const user = await this.checkCurrent(id, currentPassword);
     user.passwordHash = await hashPassword(newPassword);
     await this.em.flush();
+    await endSessionsOf(this.em, id, sessionId);
   }
 }
