@@ -45,6 +45,8 @@ export async function sendInvitation(page: Page, email: string): Promise<void> {
 export async function findEmailLink(page: Page, to: string, pathPrefix: string): Promise<string> {
   await page.goto('/dev/inbox');
   await expect(page.getByRole('heading', { level: 1, name: 'Development inbox' })).toBeVisible();
+  await page.getByLabel('Only messages to').fill(to);
+  await page.getByRole('button', { name: 'Filter' }).click();
   let found: string | null = null;
   await expect(async () => {
     const items = page.getByTestId('inbox-item').filter({ hasText: `To: ${to}` });

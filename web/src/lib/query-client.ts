@@ -1,5 +1,6 @@
-import { QueryClient, type DefaultOptions } from '@tanstack/react-query';
+import { QueryCache, QueryClient, type DefaultOptions } from '@tanstack/react-query';
 import { isApiError } from './api-client';
+import { userQueryOptions } from './auth';
 
 export const queryConfig = {
   queries: {
@@ -17,5 +18,18 @@ export const queryConfig = {
 } satisfies DefaultOptions;
 
 export function createQueryClient(): QueryClient {
-  return new QueryClient({ defaultOptions: queryConfig });
+  const client: QueryClient = new QueryClient({
+    defaultOptions: queryConfig,
+    queryCache: new QueryCache({
+      onError: (error, query) => {
+        // The session ended (expired, or signed out in another tab): forget the user so
+        // RequireAuth sends them to sign in and back.
+        const meKey = userQueryOptions().queryKey;
+        if (isApiError(error) && error.status === 401 && query.queryKey[0] !== meKey[0]) {
+          client.setQueryData(meKey, null);
+        }
+      },
+    }),
+  });
+  return client;
 }

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import Card from 'react-bootstrap/Card';
+import Form from 'react-bootstrap/Form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
 import { useParams } from 'react-router-dom';
@@ -24,6 +25,7 @@ export default function MembersRoute() {
   const members = useMembers(guildId);
   const updateRoles = useUpdateMemberRoles(guildId, [dashboardQueryOptions().queryKey]);
   const [editing, setEditing] = useState<Member | null>(null);
+  const [search, setSearch] = useState('');
   usePageTitle(guild.data ? `${guild.data.name} members` : 'Members');
 
   if (guild.isPending) return <PageSpinner label="Loading the guild" />;
@@ -41,6 +43,10 @@ export default function MembersRoute() {
   const isAdmin = myRoles.includes('admin');
   const canInvite = myRoles.some((r) => OFFICER_INVITE_ROLES.includes(r as Role));
   const count = members.data?.length;
+  const needle = search.trim().toLowerCase();
+  const shown = members.data?.filter(
+    (m) => !needle || m.name.toLowerCase().includes(needle) || m.email?.toLowerCase().includes(needle),
+  );
 
   return (
     <>
@@ -61,9 +67,27 @@ export default function MembersRoute() {
             </h2>
             {members.isPending && <PageSpinner label="Loading members" />}
             {members.isError && <ErrorAlert error={members.error} />}
-            {members.data && (
-              <MemberList members={members.data} canEditRoles={isAdmin} onEditRoles={setEditing} />
+            {members.data && members.data.length > 6 && (
+              <Form.Group controlId="member-search" className="mb-3" role="search" aria-label="Find a member">
+                <Form.Label>Find a member</Form.Label>
+                <Form.Control
+                  type="search"
+                  value={search}
+                  onChange={(e) => setSearch(e.currentTarget.value)}
+                  aria-describedby="member-search-count"
+                  autoComplete="off"
+                />
+                <Form.Text id="member-search-count" role="status" className="d-block">
+                  {needle ? `${shown?.length ?? 0} of ${count} members match.` : 'Type part of a name or e-mail address.'}
+                </Form.Text>
+              </Form.Group>
             )}
+            {shown && <MemberList
+                members={shown}
+                canEditRoles={isAdmin}
+                onEditRoles={setEditing}
+                emptyText={needle ? 'No members match your search.' : undefined}
+              />}
           </section>
         </Col>
         {canInvite && (

@@ -45,7 +45,7 @@ export function AppShell({ signedIn, guildLinks = [], showInbox = false, onSignO
             <Navbar.Brand as={Link} to={paths.home.getHref()} className="py-1">
               <Logo title="Selvage, go to dashboard" height={36} />
             </Navbar.Brand>
-            <Navbar.Toggle aria-controls="main-navigation" aria-label="Menu" />
+            <Navbar.Toggle aria-controls="main-navigation" label="Menu" />
             <Navbar.Collapse id="main-navigation">
               <Nav as="nav" aria-label="Main" className="ms-auto align-items-lg-center">
                 {signedIn ? (

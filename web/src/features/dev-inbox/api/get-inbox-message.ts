@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { inboxQueryOptions, type InboxSummary } from './get-inbox';
+import type { InboxSummary } from './get-inbox';
 
 export type InboxMessage = InboxSummary & {
   html?: string | null;
@@ -12,7 +12,7 @@ export const getInboxMessage = (id: string, signal?: AbortSignal) =>
 
 export const inboxMessageQueryOptions = (id: string) =>
   queryOptions({
-    queryKey: [...inboxQueryOptions().queryKey, id] as const,
+    queryKey: ['dev-inbox', 'message', id] as const,
     queryFn: ({ signal }) => getInboxMessage(id, signal),
     staleTime: Infinity,
   });

@@ -25,20 +25,21 @@ export function formatAddress(value: RawAddress): string {
   return value.text ?? value.address ?? value.name ?? '';
 }
 
-export const getInbox = async (signal?: AbortSignal): Promise<InboxSummary[]> => {
-  const data = await api.get<InboxResponse>('/dev/inbox', signal);
+export const getInbox = async (to: string, signal?: AbortSignal): Promise<InboxSummary[]> => {
+  const query = to ? `?to=${encodeURIComponent(to)}` : '';
+  const data = await api.get<InboxResponse>(`/dev/inbox${query}`, signal);
   const list = Array.isArray(data) ? data : (data?.messages ?? []);
   return list.map((m) => ({ ...m, id: String(m.id) }));
 };
 
-export const inboxQueryOptions = () =>
+export const inboxQueryOptions = (to = '') =>
   queryOptions({
-    queryKey: ['dev-inbox'] as const,
-    queryFn: ({ signal }) => getInbox(signal),
+    queryKey: ['dev-inbox', 'list', to] as const,
+    queryFn: ({ signal }) => getInbox(to, signal),
     refetchInterval: env.inboxRefreshMs,
     staleTime: 0,
   });
 
-export function useInbox(options: { enabled?: boolean } = {}) {
-  return useQuery({ ...inboxQueryOptions(), ...options });
+export function useInbox(to: string, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...inboxQueryOptions(to), ...options });
 }

@@ -8,6 +8,7 @@ type MemberListProps = {
   members: Member[];
   canEditRoles: boolean;
   onEditRoles: (member: Member) => void;
+  emptyText?: string;
 };
 
 function formatJoined(iso: string | null | undefined) {
@@ -17,8 +18,8 @@ function formatJoined(iso: string | null | undefined) {
   return date.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
-export function MemberList({ members, canEditRoles, onEditRoles }: MemberListProps) {
-  if (members.length === 0) return <p>No members yet.</p>;
+export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No members yet.' }: MemberListProps) {
+  if (members.length === 0) return <p>{emptyText}</p>;
   return (
     <ul className="member-list row row-cols-1 row-cols-md-2 g-3" aria-label="Members">
       {members.map((member) => {
@@ -31,7 +32,9 @@ export function MemberList({ members, canEditRoles, onEditRoles }: MemberListPro
                 {member.email && (
                   <p className="mb-1 break-anywhere">
                     <span className="visually-hidden">E-mail: </span>
-                    <a href={`mailto:${member.email}`}>{member.email}</a>
+                    <a href={`mailto:${member.email}`} className="tap-link">
+                      {member.email}
+                    </a>
                   </p>
                 )}
                 <p className="mb-2">
