@@ -50,6 +50,37 @@ describe('the e-mail outbox (real MariaDB, SMTP fake)', () => {
     expect(rows.every((r) => r.status === 'sent' && r.attempts === 1 && r.sentAt)).toBe(true);
   });
 
+  it('never deadlocks when messages are enqueued while two instances drain', async () => {
+    const tag = unique('busy');
+    let draining = true;
+    const drainLoop = async (t: TestApp) => {
+      while (draining) {
+        await t.app.get(OutboxWorker).drain();
+        await new Promise((r) => setTimeout(r, 5));
+      }
+    };
+    const loops = [drainLoop(a), drainLoop(b)];
+    try {
+      for (let batch = 0; batch < 10; batch++)
+        await Promise.all(
+          Array.from({ length: 6 }, (_, i) => enqueue(i % 2 ? a : b, `${tag}:${batch}:${i}`, `${tag}-${batch}-${i}@test.example`)),
+        );
+    } finally {
+      draining = false;
+      await Promise.all(loops);
+    }
+    // Rows a background tick claimed are still on their way; wait for them, then check all 60.
+    let rows: OutboxMessage[] = [];
+    for (let i = 0; i < 100; i++) {
+      await a.app.get(OutboxWorker).drain();
+      rows = await a.orm.em.fork().find(OutboxMessage, { idempotencyKey: { $like: `${tag}:%` } });
+      if (rows.every((r) => r.status === 'sent')) break;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(rows).toHaveLength(60);
+    expect(rows.filter((r) => r.status !== 'sent' || r.attempts !== 1)).toEqual([]);
+  });
+
   it('rolls the message back with the change that caused it', async () => {
     const key = unique('rollback');
     await expect(
@@ -69,6 +100,9 @@ describe('the e-mail outbox (real MariaDB, SMTP fake)', () => {
   it('retries with backoff when the mail server is down, and a dead sender\'s lease runs out', async () => {
     const key = unique('retry');
     const to = `${key}@test.example`;
+    // Step by hand: no background sender may pick the row up first.
+    await a.app.get(OutboxWorker).stopPolling();
+    await b.app.get(OutboxWorker).stopPolling();
     // A worker whose SMTP server does not exist: the send fails and the row waits for a retry.
     const cfg = { ...a.app.get(mailConfig.KEY), port: 1, workerEnabled: false };
     const broken = new OutboxWorker(a.app.get(MikroORM), cfg as never);

@@ -1,3 +1,4 @@
+import { IsolationLevel } from '@mikro-orm/core';
 import { EntityManager, MikroORM } from '@mikro-orm/mariadb';
 import { Inject, Injectable, Logger, OnApplicationBootstrap, OnApplicationShutdown } from '@nestjs/common';
 import { createTransport, type Transporter } from 'nodemailer';
@@ -20,12 +21,16 @@ export class OutboxWorker implements OnApplicationBootstrap, OnApplicationShutdo
   private timer?: NodeJS.Timeout;
   private running?: Promise<unknown>;
   private stopped = false;
+  private closing = false;
 
   constructor(
     private readonly orm: MikroORM,
     @Inject(mailConfig.KEY) private readonly mail: MailConfig,
   ) {
     this.transport = createTransport({
+      // A few kept-open connections instead of one handshake per message.
+      pool: true,
+      maxConnections: 3,
       host: mail.host,
       port: mail.port,
       secure: mail.secure,
@@ -51,10 +56,16 @@ export class OutboxWorker implements OnApplicationBootstrap, OnApplicationShutdo
     this.timer = setTimeout(tick, 10);
   }
 
-  async onApplicationShutdown(): Promise<void> {
+  /** Stops the background loop (drain() still works); for tests that need to step by hand. */
+  async stopPolling(): Promise<void> {
     this.stopped = true;
     if (this.timer) clearTimeout(this.timer);
     await this.running;
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    this.closing = true;
+    await this.stopPolling();
     this.transport.close();
   }
 
@@ -66,7 +77,7 @@ export class OutboxWorker implements OnApplicationBootstrap, OnApplicationShutdo
       if (claimed.length === 0) return total;
       total += claimed.length;
       for (const message of claimed) await this.send(message);
-      if (this.stopped) return total;
+      if (this.closing) return total;
     }
   }
 
@@ -91,7 +102,9 @@ export class OutboxWorker implements OnApplicationBootstrap, OnApplicationShutdo
         { status: 'sending', lockedUntil: new Date(now.getTime() + LEASE_MS) },
       );
       return tx.find(OutboxMessage, { id: { $in: ids } }, { orderBy: { id: 'asc' } });
-    });
+      // READ COMMITTED takes no gap locks, so claiming never deadlocks with the inserts of
+      // transactions that are enqueueing new messages at the same moment.
+    }, { isolationLevel: IsolationLevel.READ_COMMITTED });
   }
 
   private async send(message: OutboxMessage): Promise<void> {
