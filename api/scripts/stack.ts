@@ -158,6 +158,7 @@ async function start() {
   const env = apiEnv(ports, 'selvage', dbPassword, {
     SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(join(DATA, 'session-secret')),
     WEB_DIST_DIR: join(WEB, 'dist'),
+    LOG_PRETTY: process.env.LOG_PRETTY ?? 'true',
   });
   await migrateAndSeed(env, true);
   await startApi(env);

@@ -1,5 +1,5 @@
 import { MikroOrmModule } from '@mikro-orm/nestjs';
-import { Module } from '@nestjs/common';
+import { Module, RequestMethod } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ScheduleModule } from '@nestjs/schedule';
@@ -25,12 +25,16 @@ import { ProfileModule } from './profile/profile.module';
   imports: [
     ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig] }),
     LoggerModule.forRoot({
+      forRoutes: [{ path: '{*path}', method: RequestMethod.ALL }],
       pinoHttp: {
         level: process.env.LOG_LEVEL ?? 'info',
         redact: ['req.headers.cookie', 'res.headers["set-cookie"]'],
         autoLogging: { ignore: (req) => req.url === '/api/health' },
+        // One readable line per event for people at a terminal; JSON lines for log collectors.
         transport:
-          process.env.NODE_ENV === 'development' ? { target: 'pino-pretty', options: { singleLine: true } } : undefined,
+          process.env.NODE_ENV === 'development' || process.env.LOG_PRETTY === 'true'
+            ? { target: 'pino-pretty', options: { singleLine: true, ignore: 'pid,hostname,req,res', translateTime: 'SYS:HH:MM:ss' } }
+            : undefined,
       },
     }),
     MikroOrmModule.forRoot({ ...ormConfig, registerRequestContext: true, autoLoadEntities: false }),

@@ -9,6 +9,7 @@ export const envSchema = Joi.object({
   SESSION_SECRET: Joi.string().min(32).required(),
   WEB_DIST_DIR: Joi.string().allow('').default(''),
   TRUST_PROXY: Joi.boolean().default(false),
+  LOG_PRETTY: Joi.boolean().default(false),
   LOG_LEVEL: Joi.string().valid('fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent').default('info'),
 
   DB_HOST: Joi.string().default('127.0.0.1'),

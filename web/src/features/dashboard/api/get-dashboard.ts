@@ -9,6 +9,7 @@ export type DashboardGuild = {
   roles: string[];
   status: string;
   memberCount: number;
+  bees?: { id: number; name: string; description: string | null }[];
 };
 
 export type Dashboard = { user: User; guilds: DashboardGuild[] };

@@ -29,6 +29,19 @@ export function GuildCard({ guild }: { guild: DashboardGuild }) {
           {guild.memberCount === 1 ? '1 member' : `${guild.memberCount} members`}
           {guild.status && guild.status !== 'active' && <> · Membership {statusLabel(guild.status).toLowerCase()}</>}
         </p>
+        {guild.bees && guild.bees.length > 0 && (
+          <div className="mb-3">
+            <h4 className="h6 mb-1">My bees</h4>
+            <ul className="list-unstyled mb-0">
+              {guild.bees.map((bee) => (
+                <li key={bee.id} className="mb-1">
+                  <strong>{bee.name}</strong>
+                  {bee.description && <span className="d-block text-body-secondary small">{bee.description}</span>}
+                </li>
+              ))}
+            </ul>
+          </div>
+        )}
         <Link to={paths.members.getHref(guild.id)} className="btn btn-outline-primary mt-auto align-self-start">
           Member directory<span className="visually-hidden"> for {guild.name}</span>
         </Link>
