@@ -2,10 +2,13 @@ import 'reflect-metadata';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { Logger } from 'nestjs-pino';
-import { AppModule } from './app.module';
-import { configureApp } from './configure-app';
+import { validateEnv } from './config/env.validation';
 
 async function bootstrap() {
+  // Checked before the modules load, so a misconfigured server prints only the list of problems.
+  validateEnv(process.env);
+  const { AppModule } = await import('./app.module');
+  const { configureApp } = await import('./configure-app');
   const app = await NestFactory.create<NestExpressApplication>(AppModule, { bufferLogs: true, rawBody: true });
   app.useLogger(app.get(Logger));
   const { closeSessionStore } = configureApp(app);
@@ -22,7 +25,6 @@ async function bootstrap() {
 }
 
 bootstrap().catch((e: unknown) => {
-  // Config errors are already a readable list; print them without a stack.
   console.error(e instanceof Error ? e.message : e);
   process.exit(1);
 });
