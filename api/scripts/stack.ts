@@ -180,7 +180,10 @@ async function dev() {
     EXTRA_ORIGINS: 'http://127.0.0.1:5173,http://localhost:5173',
   });
   await migrateAndSeed(env, true);
-  startBackground('api (watch)', 'npx', ['tsx', 'watch', join(API, 'src', 'main.ts')], env);
+  // esbuild-based runners drop decorator metadata, which Nest's injection needs: compile with tsc
+  // in watch mode and let node restart on each new build.
+  startBackground('tsc (watch)', 'npx', ['tsc', '-p', join(API, 'tsconfig.build.json'), '--watch', '--preserveWatchOutput'], process.env);
+  startBackground('api (watch)', process.execPath, ['--watch', join(API, 'dist', 'src', 'main.js')], env);
   startBackground('vite', 'npm', ['run', 'dev', '-w', 'web', '--', '--host', '127.0.0.1'], { ...process.env, API_PORT: String(ports.api) });
   log('api on :3000, web on http://127.0.0.1:5173 (Ctrl-C stops everything)');
   await new Promise(() => undefined);
@@ -251,8 +254,11 @@ if (!commands[command]) {
   console.error(`usage: stack.ts ${Object.keys(commands).join('|')}`);
   process.exit(2);
 }
+// Ctrl-C reaches us more than once (from the terminal and relayed by npm and tsx): the first
+// starts an orderly shutdown, the rest are ignored so they cannot cut it short.
 for (const signal of ['SIGINT', 'SIGTERM'] as const) {
-  process.once(signal, () => {
+  process.on(signal, () => {
+    if (shuttingDown) return;
     log(`${signal}: stopping everything`);
     void shutdown(130);
   });
