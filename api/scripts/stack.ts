@@ -107,6 +107,7 @@ function apiEnv(ports: Ports, dbName: string, dbPassword: string, extra: NodeJS.
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(ports.smtp),
     SMTP_FAKE_INBOX_URL: `http://127.0.0.1:${ports.smtpHttp}`,
+    UPLOADS_DIR: process.env.UPLOADS_DIR ?? join(dbName === 'selvage' ? DATA : join(DATA, 'test'), 'uploads'),
     MIKRO_ORM_CLI_USE_TS_NODE: '0',
     ...extra,
   };

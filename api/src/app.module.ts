@@ -9,12 +9,16 @@ import { HttpErrorFilter } from './common/filters/http-error.filter';
 import { AuthenticatedGuard } from './common/guards/authenticated.guard';
 import { GuildAccessGuard } from './common/guards/guild-access.guard';
 import { OriginGuard } from './common/guards/origin.guard';
-import { appConfig, authConfig, mailConfig } from './config/app.config';
+import { appConfig, authConfig, beesConfig, mailConfig } from './config/app.config';
 import { validateEnv } from './config/env.validation';
 import { DashboardModule } from './dashboard/dashboard.module';
 import { DevInboxModule } from './dev-inbox/dev-inbox.module';
 import { GuildsModule } from './guilds/guilds.module';
+import { BeesModule } from './bees/bees.module';
 import { HealthModule } from './health/health.module';
+import { LayoutModule } from './layout/layout.module';
+import { RoundsModule } from './rounds/rounds.module';
+import { StorageModule } from './storage/storage.module';
 import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import ormConfig from './mikro-orm.config';
@@ -23,7 +27,7 @@ import { ProfileModule } from './profile/profile.module';
 
 @Module({
   imports: [
-    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig, beesConfig] }),
     LoggerModule.forRoot({
       forRoutes: [{ path: '{*path}', method: RequestMethod.ALL }],
       pinoHttp: {
@@ -48,6 +52,10 @@ import { ProfileModule } from './profile/profile.module';
     DevInboxModule,
     HealthModule,
     HousekeepingModule,
+    StorageModule,
+    BeesModule,
+    RoundsModule,
+    LayoutModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

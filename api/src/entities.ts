@@ -2,6 +2,10 @@ import { PasswordReset } from './auth/password-reset.entity';
 import { SignInFailure } from './auth/sign-in-attempt.entity';
 import { BeeMember } from './bees/bee-member.entity';
 import { Bee } from './bees/bee.entity';
+import { BeeSlot } from './bees/bee-slot.entity';
+import { RoundBlock } from './rounds/round-block.entity';
+import { RoundFile } from './rounds/round-file.entity';
+import { Round } from './rounds/round.entity';
 import { Guild } from './guilds/guild.entity';
 import { Membership } from './guilds/membership.entity';
 import { Invitation } from './invitations/invitation.entity';
@@ -21,4 +25,8 @@ export const ENTITIES = [
   OutboxMessage,
   Bee,
   BeeMember,
+  BeeSlot,
+  Round,
+  RoundFile,
+  RoundBlock,
 ];

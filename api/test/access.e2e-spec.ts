@@ -37,6 +37,28 @@ const ACCESS: Record<string, Access> = {
   'GET /api/guilds/:guildId/invitations': ['admin', 'membership_chair'],
   'POST /api/guilds/:guildId/invitations': ['admin', 'membership_chair'],
   'DELETE /api/guilds/:guildId/invitations/:invitationId': ['admin', 'membership_chair'],
+  // Bees are open to every member; organiser, queen and maker rights are checked per bee in
+  // bees.e2e-spec.ts and rounds.e2e-spec.ts.
+  'GET /api/guilds/:guildId/bees': 'member',
+  'POST /api/guilds/:guildId/bees': 'member',
+  'GET /api/guilds/:guildId/bees/:beeId': 'member',
+  'PATCH /api/guilds/:guildId/bees/:beeId': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/invitations': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/join': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/leave': 'member',
+  'DELETE /api/guilds/:guildId/bees/:beeId/members/:membershipId': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rotation': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rotation/skip': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rotation/swap': 'member',
+  'GET /api/guilds/:guildId/bees/:beeId/rounds/:month': 'member',
+  'PUT /api/guilds/:guildId/bees/:beeId/rounds/:month': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/publish': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/files': 'member',
+  'GET /api/guilds/:guildId/bees/:beeId/rounds/:month/files/:fileId': 'member',
+  'DELETE /api/guilds/:guildId/bees/:beeId/rounds/:month/files/:fileId': 'member',
+  'PATCH /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/nudges': 'member',
+  'POST /api/layout-plans': 'signed-in',
 };
 
 interface Layer {
@@ -111,6 +133,9 @@ describe('every route against the access table (real MariaDB)', () => {
         .replace(':guildId', String(s.guild.id))
         .replace(':membershipId', String(s.member.membership!.id))
         .replace(':invitationId', String(invitationId))
+        .replace(':beeId', '999999')
+        .replace(':month', '2027-01')
+        .replace(':fileId', '1')
         .replace(':token', 'no-such-token-000000000000')
         .replace(':id', 'none')
         .replace('/*', '/index.html');

@@ -1,3 +1,4 @@
+import { join } from 'node:path';
 import { registerAs } from '@nestjs/config';
 
 export const appConfig = registerAs('app', () => ({
@@ -8,6 +9,7 @@ export const appConfig = registerAs('app', () => ({
   sessionSecret: process.env.SESSION_SECRET as string,
   webDistDir: process.env.WEB_DIST_DIR ?? '',
   trustProxy: process.env.TRUST_PROXY === 'true',
+  uploadsDir: process.env.UPLOADS_DIR || join(process.cwd(), '.data', 'uploads'),
 }));
 
 export const authConfig = registerAs('auth', () => ({
@@ -27,6 +29,12 @@ export const mailConfig = registerAs('mail', () => ({
   pollMs: Number(process.env.OUTBOX_POLL_MS ?? 1000),
   workerEnabled: process.env.OUTBOX_ENABLED !== 'false',
 }));
+
+export const beesConfig = registerAs('bees', () => ({
+  tickMs: Number(process.env.BEES_TICK_MS ?? 60_000),
+  schedulerEnabled: process.env.BEES_SCHEDULER_ENABLED !== 'false',
+}));
+export type BeesConfig = ReturnType<typeof beesConfig>;
 
 export type AppConfig = ReturnType<typeof appConfig>;
 export type AuthConfig = ReturnType<typeof authConfig>;

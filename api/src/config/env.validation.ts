@@ -9,6 +9,9 @@ export const envSchema = Joi.object({
   SESSION_SECRET: Joi.string().min(32).required(),
   WEB_DIST_DIR: Joi.string().allow('').default(''),
   TRUST_PROXY: Joi.boolean().default(false),
+  UPLOADS_DIR: Joi.string().allow('').default(''),
+  BEES_TICK_MS: Joi.number().integer().min(100).default(60000),
+  BEES_SCHEDULER_ENABLED: Joi.boolean().default(true),
   LOG_PRETTY: Joi.boolean().default(false),
   LOG_LEVEL: Joi.string().valid('fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent').default('info'),
 

@@ -5,13 +5,16 @@ import type { SessionUser } from '../auth/session-user';
 import { BeeMember } from '../bees/bee-member.entity';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Membership } from '../guilds/membership.entity';
+import { RoundBlock } from '../rounds/round-block.entity';
+import { localDate } from '../rounds/round-presenter';
+import { isLate } from '../rounds/block-status';
 
 @ApiTags('dashboard')
 @Controller('dashboard')
 export class DashboardController {
   constructor(private readonly em: EntityManager) {}
 
-  /** Everything the home screen shows, in three queries whatever the number of guilds. */
+  /** Everything the home screen shows, in four queries whatever the number of guilds. */
   @Get()
   async show(@CurrentUser() user: SessionUser) {
     const memberships = await this.em.find(
@@ -31,7 +34,28 @@ export class DashboardController {
     const bees = memberships.length
       ? await this.em.find(BeeMember, { membership: { $in: memberships.map((m) => m.id) } }, { populate: ['bee'] })
       : [];
+    const owed = memberships.length
+      ? await this.em.find(
+          RoundBlock,
+          { maker: { $in: memberships.map((m) => m.id) }, status: { $ne: 'received' }, round: { sentAt: { $ne: null } } },
+          { populate: ['round.bee.guild', 'round.queen.user'], orderBy: { round: { dueDate: 'asc' } } },
+        )
+      : [];
     return {
+      owed: owed.map((b) => {
+        const today = localDate(new Date(), b.round.bee.guild.timeZone);
+        return {
+          guildId: b.round.bee.guild.id,
+          beeId: b.round.bee.id,
+          beeName: b.round.bee.name,
+          month: b.round.month,
+          title: b.round.title,
+          queenName: b.round.queen.user.name,
+          dueDate: b.round.dueDate,
+          status: b.status,
+          late: isLate(b.status, b.round.dueDate, today),
+        };
+      }),
       user,
       guilds: memberships.map((m) => ({
         id: m.guild.id,
@@ -42,7 +66,7 @@ export class DashboardController {
         joinedAt: m.joinedAt,
         memberCount: Number(counts.find((c) => Number(c.guild_id) === m.guild.id)?.n ?? 0),
         bees: bees
-          .filter((b) => b.membership.id === m.id)
+          .filter((b) => b.membership.id === m.id && b.status === 'active')
           .map((b) => ({ id: b.bee.id, name: b.bee.name, description: b.bee.description ?? null })),
       })),
     };

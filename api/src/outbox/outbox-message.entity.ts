@@ -29,6 +29,10 @@ export class OutboxMessage extends BaseEntity<'status' | 'attempts' | 'nextAttem
   @Property({ type: 'json', nullable: true })
   headers?: Record<string, string> | null;
 
+  /** Small attachments (calendar files), base64; large files are linked, not attached. */
+  @Property({ type: 'json', nullable: true })
+  attachments?: { filename: string; contentType: string; contentBase64: string }[] | null;
+
   @Enum({ items: ['pending', 'sending', 'sent', 'failed'], type: 'string', length: 16 })
   status: OutboxStatus = 'pending';
 

@@ -118,6 +118,11 @@ export class OutboxWorker implements OnApplicationBootstrap, OnApplicationShutdo
         html: message.html,
         text: message.text,
         headers: message.headers ?? undefined,
+        attachments: message.attachments?.map((a) => ({
+          filename: a.filename,
+          contentType: a.contentType,
+          content: Buffer.from(a.contentBase64, 'base64'),
+        })),
         messageId: `<outbox-${message.id}-${message.idempotencyKey.replace(/[^A-Za-z0-9.-]/g, '.')}@selvage>`,
       });
       await em.nativeUpdate(

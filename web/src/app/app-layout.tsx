@@ -16,10 +16,13 @@ export function AppLayout() {
   const signOut = useSignOut();
 
   const guilds = dashboard.data?.guilds ?? [];
-  const guildLinks = guilds.map((g) => ({
-    to: paths.members.getHref(g.id),
-    label: guilds.length === 1 ? 'Members' : `${g.name} members`,
-  }));
+  const guildLinks = [
+    ...guilds.flatMap((g) => [
+      { to: paths.members.getHref(g.id), label: guilds.length === 1 ? 'Members' : `${g.name} members` },
+      { to: paths.bees.getHref(g.id), label: guilds.length === 1 ? 'Bees' : `${g.name} bees` },
+    ]),
+    { to: paths.layoutPlanner.getHref(), label: 'Layout planner' },
+  ];
 
   return (
     <AppShell

@@ -36,6 +36,10 @@ export const routes: RouteObject[] = [
             children: [
               { path: paths.home.path, lazy: lazyRoute(() => import('./routes/dashboard')) },
               { path: paths.members.path, lazy: lazyRoute(() => import('./routes/members')) },
+              { path: paths.bees.path, lazy: lazyRoute(() => import('./routes/bees')) },
+              { path: paths.bee.path, lazy: lazyRoute(() => import('./routes/bee')) },
+              { path: paths.round.path, lazy: lazyRoute(() => import('./routes/round')) },
+              { path: paths.layoutPlanner.path, lazy: lazyRoute(() => import('./routes/layout-planner')) },
               { path: paths.profile.path, lazy: lazyRoute(() => import('./routes/profile')) },
             ],
           },

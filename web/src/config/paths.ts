@@ -27,6 +27,24 @@ export const paths = {
     path: '/guilds/:guildId/members',
     getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/members`,
   },
+  bees: {
+    path: '/guilds/:guildId/bees',
+    getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/bees`,
+  },
+  bee: {
+    path: '/guilds/:guildId/bees/:beeId',
+    getHref: (guildId: string | number, beeId: string | number) =>
+      `/guilds/${encodeURIComponent(String(guildId))}/bees/${encodeURIComponent(String(beeId))}`,
+  },
+  round: {
+    path: '/guilds/:guildId/bees/:beeId/rounds/:month',
+    getHref: (guildId: string | number, beeId: string | number, month: string) =>
+      `/guilds/${encodeURIComponent(String(guildId))}/bees/${encodeURIComponent(String(beeId))}/rounds/${encodeURIComponent(month)}`,
+  },
+  layoutPlanner: {
+    path: '/layout-planner',
+    getHref: () => '/layout-planner',
+  },
   profile: {
     path: '/profile',
     getHref: () => '/profile',

@@ -10,6 +10,47 @@ import { Guild } from '../../guilds/guild.entity';
 import { Membership } from '../../guilds/membership.entity';
 import { normaliseRoles } from '../../guilds/roles';
 import { User } from '../../users/user.entity';
+import { BeeSlot } from '../../bees/bee-slot.entity';
+import { monthOf, monthsFrom, planRotation, seededShuffle } from '../../bees/rotation';
+import { inchesToMm, parseInches, roundMm } from '../../common/units/inches';
+import { RoundBlock, type BlockStatus } from '../../rounds/round-block.entity';
+import { defaultSendAt } from '../../rounds/round-presenter';
+import { Round } from '../../rounds/round.entity';
+
+/** The month `offset` months after `month` (negative for before). */
+function monthsAround(month: string, offset: number): string {
+  if (offset >= 0) return monthsFrom(month, offset + 1)[offset];
+  const [y, m] = month.split('-').map(Number);
+  const index = y * 12 + (m - 1) + offset;
+  return `${Math.floor(index / 12)}-${String((index % 12) + 1).padStart(2, '0')}`;
+}
+
+interface DemoRound {
+  offset: number;
+  title: string;
+  finished: string;
+  instructions: string;
+  swatches: [string, string][];
+  background: [string, string] | null;
+  trim: 'trim' | 'untrimmed';
+  draft?: boolean;
+  statuses?: BlockStatus[];
+}
+
+interface DemoBee {
+  name: string;
+  description: string;
+  organiser: string;
+  members: string[];
+  handover: 'mail' | 'meeting';
+  startOffsetMonths: number;
+  months: number;
+  skip: string[];
+  seed: string;
+  address?: string;
+  meeting?: string;
+  rounds: DemoRound[];
+}
 
 interface DemoFile {
   password: string;
@@ -21,7 +62,7 @@ interface DemoFile {
     unit: 'in' | 'cm';
     yearStartMonth: number;
     members: { name: string; email: string; roles: string[] }[];
-    bees: { name: string; description: string; organiser: string; members: string[] }[];
+    bees: DemoBee[];
   }[];
 }
 
@@ -53,16 +94,77 @@ export class DemoSeeder extends Seeder {
           em.create(Membership, { user, guild, roles: normaliseRoles(m.roles), joinedAt: joined }),
         );
       }
-      for (const b of g.bees) {
-        const bee = em.create(Bee, {
-          guild,
-          name: b.name,
-          description: b.description,
-          organiser: memberships.get(b.organiser)!,
-        });
-        for (const email of b.members) em.create(BeeMember, { bee, membership: memberships.get(email)! });
-      }
+      await em.flush();
+      for (const b of g.bees) await this.seedBee(em, guild, b, memberships);
     }
     await em.flush();
+  }
+
+  /** A bee with a shuffled rotation and a few months of rounds around today, so the demo is alive. */
+  private async seedBee(em: EntityManager, guild: Guild, b: DemoBee, memberships: Map<string, Membership>) {
+    const current = monthOf(new Date(), guild.timeZone);
+    const startMonth = monthsAround(current, b.startOffsetMonths);
+    const months = monthsFrom(startMonth, b.months);
+    const skipped = new Set(months.filter((m) => b.skip.includes(m.slice(5))));
+    const members = b.members.map((email) => memberships.get(email)!);
+    const order = seededShuffle(members.map((m) => m.id), b.seed);
+    const bee = em.create(Bee, {
+      guild,
+      name: b.name,
+      description: b.description,
+      organiser: memberships.get(b.organiser)!,
+      handover: b.handover,
+      startMonth,
+      months: b.months,
+      skippedMonths: [...skipped],
+      rotationOrder: order,
+      rotationSeed: b.seed,
+    });
+    for (const m of members) em.create(BeeMember, { bee, membership: m, status: 'active', joinedAt: new Date() });
+    const slots = planRotation({ months, skipped, order, kept: [] });
+    for (const slot of slots)
+      em.create(BeeSlot, { bee, month: slot.month, skipped: slot.skipped, queen: slot.queenId ? members.find((m) => m.id === slot.queenId)! : null });
+    await em.flush();
+
+    for (const r of b.rounds) {
+      const month = monthsAround(current, r.offset);
+      const slot = slots.find((s) => s.month === month);
+      if (!slot || slot.skipped || !slot.queenId) continue;
+      const queen = members.find((m) => m.id === slot.queenId)!;
+      const [w, h] = r.finished.split(' x ');
+      const sendAt = defaultSendAt(month, guild.timeZone);
+      const round = em.create(Round, {
+        bee,
+        month,
+        queen,
+        title: r.title,
+        instructions: r.instructions,
+        finishedWidthMm: roundMm(inchesToMm(parseInches(w))),
+        finishedHeightMm: roundMm(inchesToMm(parseInches(h ?? w))),
+        seamAllowanceMm: roundMm(inchesToMm(0.25)),
+        toleranceMm: roundMm(inchesToMm(0.125)),
+        trimMode: r.trim,
+        swatches: r.swatches.map(([name, hex]) => ({ name, hex })),
+        background: r.background ? { name: r.background[0], hex: r.background[1] } : null,
+        fabricSource: 'stash',
+        // Due by the 15th of the following month, a common bee rule (TRADE.md §5.4).
+        dueDate: `${monthsAround(month, 1)}-15`,
+        sendAt,
+        deliveryMethod: b.handover,
+        deliveryAddress: b.handover === 'mail' ? (b.address ?? null) : null,
+        meetingDetails: b.handover === 'meeting' ? (b.meeting ?? null) : null,
+        status: r.draft ? 'draft' : 'published',
+        publishedAt: r.draft ? null : sendAt,
+        sentAt: r.draft ? null : sendAt,
+        lastEditedAt: sendAt,
+      });
+      if (r.draft) continue;
+      members
+        .filter((m) => m.id !== queen.id)
+        .forEach((maker, i) => {
+          const status = r.statuses?.[i % r.statuses.length] ?? 'not_started';
+          em.create(RoundBlock, { round, maker, status, statusChangedAt: status === 'not_started' ? null : sendAt });
+        });
+    }
   }
 }

@@ -6,11 +6,11 @@ import { PageSpinner } from '@/components/ui/page-spinner';
 import { usePageTitle } from '@/components/ui/page-title';
 import { useDashboard } from '@/features/dashboard/api/get-dashboard';
 import { GuildCard } from '@/features/dashboard/components/guild-card';
+import { OwedBlocks } from '@/features/dashboard/components/owed-blocks';
 import { useUser } from '@/lib/auth';
 
 const comingSoon = [
   { title: 'Dues — coming soon', text: 'Paying and tracking your guild dues will appear here in a later release.' },
-  { title: 'My bee blocks — coming soon', text: 'The blocks you owe and receive in bee exchanges will appear here.' },
   { title: 'Quilt show — coming soon', text: 'Entering quilts and volunteering for the show will appear here.' },
 ];
 
@@ -48,11 +48,19 @@ export default function DashboardRoute() {
         )}
       </section>
 
+      <section aria-labelledby="owed-heading" className="mb-5">
+        <h2 id="owed-heading" className="mb-3">
+          Blocks I owe
+        </h2>
+        {dashboard.isPending && <PageSpinner label="Loading your blocks" />}
+        {dashboard.data && <OwedBlocks owed={dashboard.data.owed ?? []} />}
+      </section>
+
       <section aria-labelledby="later" className="mb-3">
         <h2 id="later" className="mb-3">
           On the way
         </h2>
-        <Row xs={1} md={3} className="g-3">
+        <Row xs={1} md={2} className="g-3">
           {comingSoon.map((item) => (
             <Col key={item.title}>
               <Card className="coming-soon h-100">

@@ -17,15 +17,66 @@ function describedBy(...ids: Array<string | false | undefined>) {
 type TextFieldProps = {
   name: string;
   label: ReactNode;
-  type?: 'text' | 'email' | 'password';
+  type?: 'text' | 'email' | 'password' | 'url' | 'date' | 'time' | 'month' | 'number';
   autoComplete?: string;
   help?: ReactNode;
   optional?: boolean;
-  inputMode?: 'text' | 'email';
+  inputMode?: 'text' | 'email' | 'decimal' | 'numeric' | 'url';
   autoFocus?: boolean;
+  min?: number | string;
+  max?: number | string;
+  step?: number | string;
+  placeholder?: string;
+  className?: string;
+  /** Extra ids for aria-describedby, e.g. a live preview next to the field. */
+  describedBy?: string;
 };
 
-export function TextField({ name, label, type = 'text', help, optional, ...inputProps }: TextFieldProps) {
+export function TextField({ name, label, type = 'text', help, optional, className = 'mb-3', describedBy: extra, ...inputProps }: TextFieldProps) {
+  const id = useId();
+  const { field, error } = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <Form.Group className={className} controlId={id}>
+      <Form.Label>
+        {label}
+        {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
+      </Form.Label>
+      <Form.Control
+        {...field}
+        {...inputProps}
+        value={field.value ?? ''}
+        type={type}
+        isInvalid={Boolean(error)}
+        aria-invalid={error ? true : undefined}
+        aria-required={optional ? undefined : true}
+        aria-describedby={describedBy(errorId, helpId, extra)}
+      />
+      {error && (
+        <Form.Control.Feedback type="invalid" id={errorId}>
+          {error}
+        </Form.Control.Feedback>
+      )}
+      {help && (
+        <Form.Text id={helpId} className="d-block">
+          {help}
+        </Form.Text>
+      )}
+    </Form.Group>
+  );
+}
+
+type TextareaFieldProps = {
+  name: string;
+  label: ReactNode;
+  help?: ReactNode;
+  optional?: boolean;
+  rows?: number;
+  autoComplete?: string;
+};
+
+export function TextareaField({ name, label, help, optional, rows = 4, autoComplete }: TextareaFieldProps) {
   const id = useId();
   const { field, error } = useFieldState(name);
   const helpId = help ? `${id}-help` : undefined;
@@ -37,10 +88,11 @@ export function TextField({ name, label, type = 'text', help, optional, ...input
         {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
       </Form.Label>
       <Form.Control
+        as="textarea"
+        rows={rows}
         {...field}
-        {...inputProps}
         value={field.value ?? ''}
-        type={type}
+        autoComplete={autoComplete}
         isInvalid={Boolean(error)}
         aria-invalid={error ? true : undefined}
         aria-required={optional ? undefined : true}
@@ -57,6 +109,52 @@ export function TextField({ name, label, type = 'text', help, optional, ...input
         </Form.Text>
       )}
     </Form.Group>
+  );
+}
+
+type RadioGroupFieldProps = {
+  name: string;
+  legend: ReactNode;
+  options: readonly Option[];
+  help?: ReactNode;
+  inline?: boolean;
+};
+
+export function RadioGroupField({ name, legend, options, help, inline }: RadioGroupFieldProps) {
+  const id = useId();
+  const { field, helpers, error } = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <fieldset className="mb-3" aria-describedby={describedBy(errorId, helpId)}>
+      <legend className="form-label fs-6 fw-bold mb-1">{legend}</legend>
+      {help && (
+        <Form.Text id={helpId} className="d-block mb-1">
+          {help}
+        </Form.Text>
+      )}
+      <div className={inline ? 'd-flex flex-wrap column-gap-4' : undefined}>
+        {options.map((option) => (
+          <Form.Check key={option.value} id={`${id}-${option.value}`}>
+            <Form.Check.Input
+              type="radio"
+              name={name}
+              value={option.value}
+              checked={field.value === option.value}
+              onChange={() => void helpers.setValue(option.value)}
+              onBlur={() => void helpers.setTouched(true)}
+              isInvalid={Boolean(error)}
+            />
+            <Form.Check.Label>{option.label}</Form.Check.Label>
+          </Form.Check>
+        ))}
+      </div>
+      {error && (
+        <div className="invalid-feedback d-block" id={errorId}>
+          {error}
+        </div>
+      )}
+    </fieldset>
   );
 }
 

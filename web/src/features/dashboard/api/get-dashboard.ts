@@ -12,7 +12,19 @@ export type DashboardGuild = {
   bees?: { id: number; name: string; description: string | null }[];
 };
 
-export type Dashboard = { user: User; guilds: DashboardGuild[] };
+export type OwedBlock = {
+  guildId: number | string;
+  beeId: number | string;
+  beeName: string;
+  month: string;
+  title: string | null;
+  queenName: string | null;
+  dueDate: string | null;
+  status: string;
+  late: boolean;
+};
+
+export type Dashboard = { user: User; guilds: DashboardGuild[]; owed?: OwedBlock[] };
 
 export const getDashboard = (signal?: AbortSignal) => api.get<Dashboard>('/dashboard', signal);
 

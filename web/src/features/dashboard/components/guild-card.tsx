@@ -35,16 +35,23 @@ export function GuildCard({ guild }: { guild: DashboardGuild }) {
             <ul className="list-unstyled mb-0">
               {guild.bees.map((bee) => (
                 <li key={bee.id} className="mb-1">
-                  <strong>{bee.name}</strong>
+                  <Link to={paths.bee.getHref(guild.id, bee.id)} className="fw-bold">
+                    {bee.name}
+                  </Link>
                   {bee.description && <span className="d-block text-body-secondary small">{bee.description}</span>}
                 </li>
               ))}
             </ul>
           </div>
         )}
-        <Link to={paths.members.getHref(guild.id)} className="btn btn-outline-primary mt-auto align-self-start">
-          Member directory<span className="visually-hidden"> for {guild.name}</span>
-        </Link>
+        <div className="d-flex flex-wrap gap-2 mt-auto">
+          <Link to={paths.members.getHref(guild.id)} className="btn btn-outline-primary">
+            Member directory<span className="visually-hidden"> for {guild.name}</span>
+          </Link>
+          <Link to={paths.bees.getHref(guild.id)} className="btn btn-outline-primary">
+            Bees<span className="visually-hidden"> in {guild.name}</span>
+          </Link>
+        </div>
       </Card.Body>
     </Card>
   );

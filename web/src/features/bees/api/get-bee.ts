@@ -1,0 +1,44 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import { beesPath, beesQueryOptions, type Handover, type MyBeeStatus, type PersonRef } from './get-bees';
+
+export type BeeMemberStatus = 'active' | 'invited' | 'organiser' | 'left';
+export type BeeMember = PersonRef & { status: BeeMemberStatus };
+export type RoundStatus = 'draft' | 'published';
+
+export type RotationMonth = {
+  month: string;
+  skipped: boolean;
+  queen: PersonRef | null;
+  round: { status: RoundStatus; title: string | null } | null;
+};
+
+export type Bee = {
+  id: number;
+  name: string;
+  description: string | null;
+  handover: Handover;
+  startMonth: string;
+  months: number;
+  skippedMonths: string[];
+  organiser: PersonRef;
+  members: BeeMember[];
+  isOrganiser: boolean;
+  myStatus: MyBeeStatus;
+  rotation: RotationMonth[];
+  seed: string | number | null;
+};
+
+export const beePath = (guildId: string, beeId: string) => `${beesPath(guildId)}/${encodeURIComponent(beeId)}`;
+
+export const getBee = (guildId: string, beeId: string, signal?: AbortSignal) => api.get<Bee>(beePath(guildId, beeId), signal);
+
+export const beeQueryOptions = (guildId: string, beeId: string) =>
+  queryOptions({
+    queryKey: [...beesQueryOptions(guildId).queryKey, beeId] as const,
+    queryFn: ({ signal }) => getBee(guildId, beeId, signal),
+  });
+
+export function useBee(guildId: string, beeId: string) {
+  return useQuery(beeQueryOptions(guildId, beeId));
+}
