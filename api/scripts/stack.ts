@@ -244,9 +244,28 @@ async function test() {
   await shutdown(failed ? 1 : 0);
 }
 
-/** `npm run bench`: autocannon against a running api, health vs the signed-in dashboard. */
+/**
+ * `npm run bench`: its own MariaDB with the demo, the api on :3200, then autocannon on /api/health
+ * vs the signed-in dashboard, then a round fanned out to 5,000 makers.
+ */
 async function bench() {
-  await mustRun('bench', 'npx', ['tsx', join(API, 'scripts', 'bench.ts')], process.env);
+  const dir = join(DATA, 'bench');
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const ports: Ports = { db: 3427, smtp: 2545, smtpHttp: 2600, api: 3200 };
+  const dbPassword = randomBytes(12).toString('hex');
+  await mustRun('api build', 'npm', ['run', 'build', '-w', 'api'], process.env);
+  await startDatabase(join(dir, 'db'), ports.db, 'selvage_bench', dbPassword, true);
+  await startSmtpFake(ports, join(dir, 'mail'));
+  const env = apiEnv(ports, 'selvage_bench', dbPassword, {
+    SESSION_SECRET: randomBytes(32).toString('hex'),
+    LOG_LEVEL: 'warn',
+    UPLOADS_DIR: join(dir, 'uploads'),
+  });
+  await migrateAndSeed(env, true);
+  await startApi(env);
+  await mustRun('http bench', 'npx', ['tsx', join(API, 'scripts', 'bench.ts')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
+  await mustRun('fan-out bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-fanout.js')], env);
 }
 
 const commands: Record<string, () => Promise<void>> = { start, dev, test, bench };

@@ -93,7 +93,7 @@ export default function BeeRoute() {
   }
 
   const data = bee.data;
-  const thisMonth = currentMonth(guild.data.timeZone);
+  const thisMonth = data.currentMonth ?? currentMonth(guild.data.timeZone);
   const inBee = new Set(data.members.filter((m) => m.status !== 'left').map((m) => String(m.membershipId)));
   inBee.add(String(data.organiser.membershipId));
   const candidates = (members.data ?? []).filter((m) => !inBee.has(String(m.membershipId)));

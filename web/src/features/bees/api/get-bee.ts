@@ -10,8 +10,16 @@ export type RotationMonth = {
   month: string;
   skipped: boolean;
   queen: PersonRef | null;
-  round: { status: RoundStatus; title: string | null } | null;
+  round: { status: RoundStatus; title: string | null; sent?: boolean } | null;
+  /** Before this month (in the guild's time zone). */
+  past?: boolean;
+  /** Months after this one; only these can be skipped, swapped or re-planned. */
+  editable?: boolean;
 };
+
+/** Whether the organiser may still change a month: the api's flag, or "after this month". */
+export const isEditableMonth = (row: RotationMonth, thisMonth: string) => row.editable ?? row.month > thisMonth;
+export const isPastMonth = (row: RotationMonth, thisMonth: string) => row.past ?? row.month < thisMonth;
 
 export type Bee = {
   id: number;
@@ -27,6 +35,8 @@ export type Bee = {
   myStatus: MyBeeStatus;
   rotation: RotationMonth[];
   seed: string | number | null;
+  /** This month in the guild's time zone, "YYYY-MM". */
+  currentMonth?: string;
 };
 
 export const beePath = (guildId: string, beeId: string) => `${beesPath(guildId)}/${encodeURIComponent(beeId)}`;

@@ -4,7 +4,7 @@ import { Link } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { paths } from '@/config/paths';
 import { formatMonth } from '@/lib/dates';
-import type { Bee, RotationMonth } from '../api/get-bee';
+import { isEditableMonth, isPastMonth, type Bee, type RotationMonth } from '../api/get-bee';
 import { useSkipMonth } from '../api/skip-month';
 
 export function roundStatusLabel(row: RotationMonth): string {
@@ -15,14 +15,13 @@ export function roundStatusLabel(row: RotationMonth): string {
 type RotationTableProps = {
   guildId: string;
   bee: Bee;
-  /** This month in the guild's time zone; months before it are history and cannot change. */
+  /** This month in the guild's time zone; it and the months before it can no longer change. */
   thisMonth: string;
 };
 
 export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
   const skip = useSkipMonth(guildId, String(bee.id));
   const [announcement, setAnnouncement] = useState('');
-  const editable = (month: string) => bee.isOrganiser && month >= thisMonth;
 
   return (
     <>
@@ -42,7 +41,8 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
         </thead>
         <tbody>
           {bee.rotation.map((row) => {
-            const past = row.month < thisMonth;
+            const past = isPastMonth(row, thisMonth);
+            const editable = bee.isOrganiser && isEditableMonth(row, thisMonth);
             const current = row.month === thisMonth;
             return (
               <tr key={row.month} className={current ? 'is-current' : past ? 'is-past' : undefined} data-testid="rotation-row">
@@ -59,7 +59,7 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
                     <>
                       <span className="d-block">
                         {roundStatusLabel(row)}
-                        {row.round?.title && <>: {row.round.title}</>}
+                        {row.round?.title && <> · {row.round.title}</>}
                       </span>
                       <Link to={paths.round.getHref(guildId, bee.id, row.month)} className="tap-link">
                         Open the round<span className="visually-hidden"> for {formatMonth(row.month)}</span>
@@ -68,8 +68,8 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
                   )}
                 </td>
                 {bee.isOrganiser && (
-                  <td data-label="Skip">
-                    {editable(row.month) ? (
+                  <td data-label={editable ? 'Skip' : undefined}>
+                    {editable ? (
                       <Form.Check id={`skip-${row.month}`}>
                         <Form.Check.Input
                           type="checkbox"
@@ -96,7 +96,7 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
                         </Form.Check.Label>
                       </Form.Check>
                     ) : (
-                      <span className="text-body-secondary">{past ? 'Cannot change a past month' : ''}</span>
+                      <span className="visually-hidden">{current ? 'This month has begun and cannot change.' : 'A past month cannot change.'}</span>
                     )}
                   </td>
                 )}

@@ -7,7 +7,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { applyServerErrors } from '@/components/ui/server-errors';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { formatMonth } from '@/lib/dates';
-import type { Bee } from '../api/get-bee';
+import { isEditableMonth, type Bee } from '../api/get-bee';
 import { newSeed, useSetRotation } from '../api/set-rotation';
 import { swapMonthsSchema, useSwapMonths, type SwapMonthsValues } from '../api/swap-months';
 
@@ -18,7 +18,7 @@ export function initialOrder(bee: Bee, thisMonth: string): { membershipId: numbe
   const seen = new Set<number>();
   const order: { membershipId: number; name: string }[] = [];
   for (const row of bee.rotation) {
-    if (row.month < thisMonth || row.skipped || !row.queen || seen.has(row.queen.membershipId)) continue;
+    if (!isEditableMonth(row, thisMonth) || row.skipped || !row.queen || seen.has(row.queen.membershipId)) continue;
     seen.add(row.queen.membershipId);
     order.push(row.queen);
   }
@@ -38,7 +38,7 @@ export function ShuffleRotation({ guildId, bee }: ToolsProps) {
   const shuffled = bee.seed !== null && bee.seed !== undefined && bee.seed !== '';
   return (
     <div>
-      <p>Let Selvage draw the queen order at random for the months ahead. Past months stay as they were.</p>
+      <p>Let Selvage draw the queen order at random for the months ahead. This month and past months stay as they are.</p>
       <ErrorAlert error={setRotation.error} />
       <div className="d-flex flex-wrap gap-2">
         <Button
@@ -86,7 +86,9 @@ export function ManualOrder({ guildId, bee, thisMonth, onSaved }: ToolsProps & {
 
   return (
     <div>
-      <p>Put the makers in the order they will be queen, starting with the next month that can still change.</p>
+      <p>
+        Put the makers in the order they will be queen, from next month on. Everyone gets a turn before anyone has a second one.
+      </p>
       <ol className="manual-order" aria-label="Queen order">
         {order.map((person, index) => (
           <li key={person.membershipId} className="d-flex flex-wrap align-items-center gap-2 border-bottom py-2">
@@ -161,7 +163,7 @@ export function ManualOrder({ guildId, bee, thisMonth, onSaved }: ToolsProps & {
 
 export function SwapMonths({ guildId, bee, thisMonth }: ToolsProps) {
   const swap = useSwapMonths(guildId, String(bee.id));
-  const months = bee.rotation.filter((r) => r.month >= thisMonth);
+  const months = bee.rotation.filter((r) => isEditableMonth(r, thisMonth));
   const options = months.map((r) => ({
     value: r.month,
     label: `${formatMonth(r.month)}: ${r.skipped ? 'skipped' : (r.queen?.name ?? 'no queen')}`,
@@ -187,7 +189,7 @@ export function SwapMonths({ guildId, bee, thisMonth }: ToolsProps) {
     >
       <Form noValidate aria-label="Swap two months">
         <FormAlert />
-        <p>For when a queen cannot take her month: swap it with another month ahead.</p>
+        <p>For when a queen cannot take her month: swap it with another month from next month on.</p>
         <SelectField name="monthA" label="First month" options={options} placeholder="Choose a month" />
         <SelectField name="monthB" label="Second month" options={options} placeholder="Choose a month" />
         <SubmitButton busyLabel="Swapping">Swap these months</SubmitButton>
