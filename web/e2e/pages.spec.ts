@@ -15,6 +15,9 @@ type PageVisit = { name: string; path: () => string; heading: RegExp | string; s
 
 let invitationPath = '';
 let inboxPath = '';
+let beesPath = '';
+let beePath = '';
+let roundPath = '';
 
 const visits: PageVisit[] = [
   { name: 'sign-in', path: () => '/sign-in', heading: 'Sign in', signedIn: false },
@@ -26,6 +29,10 @@ const visits: PageVisit[] = [
   { name: 'dashboard', path: () => '/', heading: /^Hello/, signedIn: true },
   { name: 'directory', path: () => '', heading: /members$/, signedIn: true },
   { name: 'profile', path: () => '/profile', heading: 'Profile', signedIn: true },
+  { name: 'bees', path: () => beesPath, heading: /bees$/, signedIn: true },
+  { name: 'bee', path: () => beePath, heading: 'Lantern Street Bee', signedIn: true },
+  { name: 'round', path: () => roundPath, heading: /^[A-Z][a-z]+ \d{4}/, signedIn: true },
+  { name: 'layout-planner', path: () => '/layout-planner', heading: 'Layout planner', signedIn: true },
   { name: 'not-found', path: () => '/no/such/page', heading: 'Page not found', signedIn: true },
 ];
 
@@ -58,6 +65,14 @@ test.beforeAll(async ({ browser }) => {
   await page.getByRole('link', { name: 'Member directory for Wrenfield Quilt Guild' }).click();
   await expect(page.getByRole('heading', { level: 1, name: /members$/ })).toBeVisible();
   directoryPath = new URL(page.url()).pathname;
+  // The bee pages, seen by an admin who is not in the bee.
+  const guildId = directoryPath.split('/')[2];
+  beesPath = `/guilds/${guildId}/bees`;
+  const bees = (await (await page.request.get(`/api${beesPath}`)).json()) as { id: number; name: string }[];
+  const beeId = bees.find((b) => b.name === 'Lantern Street Bee')!.id;
+  beePath = `${beesPath}/${beeId}`;
+  const bee = (await (await page.request.get(`/api${beePath}`)).json()) as { currentMonth?: string; startMonth: string };
+  roundPath = `${beePath}/rounds/${bee.currentMonth ?? bee.startMonth}`;
   await context.close();
 });
 

@@ -36,7 +36,7 @@ type PublishProps = {
 
 function PublishStep({ guildId, beeId, month, page, round, timeZone, dirty }: PublishProps) {
   const publish = usePublishRound(guildId, beeId, month);
-  const sendAt = formatDateTime(round?.sendAt ?? page.sendAt, timeZone);
+  const sendAt = formatDateTime(round?.sendAt ?? page.sendAt ?? page.defaultSendAt, timeZone);
   return (
     <section aria-labelledby="publish-heading" className="publish-step mt-4">
       <h2 id="publish-heading" className="h3">
@@ -109,7 +109,9 @@ export default function RoundRoute() {
   const page = roundQuery.data;
   const round = page.round;
   const timeZone = guild.data?.timeZone;
-  const isBeeMember = bee.data.isOrganiser || bee.data.myStatus === 'active' || bee.data.myStatus === 'organiser';
+  const isBeeMember = page.isBeeMember ?? (bee.data.isOrganiser || bee.data.myStatus === 'active' || bee.data.myStatus === 'organiser');
+  const isOrganiser = page.isOrganiser ?? bee.data.isOrganiser;
+  const sent = Boolean(round?.sentAt);
   const myBlock = page.isMaker
     ? page.myMembershipId !== undefined
       ? page.blocks.find((b) => b.membershipId === page.myMembershipId)
@@ -180,7 +182,9 @@ export default function RoundRoute() {
         <h2 id="block-heading" className="h3 mb-3">
           The block
         </h2>
-        {round ? (
+        {page.skipped ? (
+          <p>This month is skipped: there is no block to make.</p>
+        ) : round ? (
           <RoundDetails guildId={guildId} beeId={beeId} page={page} round={round} timeZone={timeZone} isBeeMember={isBeeMember} />
         ) : (
           <p>
@@ -236,13 +240,21 @@ export default function RoundRoute() {
             <h2 id="makers-heading" className="h3 mb-3">
               Makers' blocks
             </h2>
-            <MakersGrid
-              blocks={page.blocks}
-              canMarkReceived={page.canEdit}
-              canSetOnBehalf={bee.data.isOrganiser}
-              onUpdate={(membershipId, input) => updateBlock.mutateAsync({ membershipId, input })}
-              onNudge={() => nudges.mutateAsync()}
-            />
+            {sent ? (
+              <MakersGrid
+                blocks={page.blocks}
+                canMarkReceived={page.canEdit}
+                canSetOnBehalf={isOrganiser}
+                onUpdate={(membershipId, input) => updateBlock.mutateAsync({ membershipId, input })}
+                onNudge={() => nudges.mutateAsync()}
+              />
+            ) : (
+              <p>
+                {round?.status === 'published'
+                  ? 'The round is published. Each maker appears here with her block once the e-mail has gone out.'
+                  : 'Each maker appears here with her block once you publish the round and the e-mail has gone out.'}
+              </p>
+            )}
           </section>
         </>
       )}

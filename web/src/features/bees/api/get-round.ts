@@ -59,12 +59,28 @@ export type RoundPage = {
   queen: PersonRef | null;
   canEdit: boolean;
   isMaker: boolean;
-  sendAt: string | null;
+  skipped?: boolean;
+  isQueen?: boolean;
+  isOrganiser?: boolean;
+  /** Whether the viewer is in the bee (only members see where blocks go). */
+  isBeeMember?: boolean;
+  /** When the e-mail goes out if the queen keeps the default send date and time. */
+  defaultSendAt?: string | null;
+  sendAt?: string | null;
   round: Round | null;
+  /** Empty until the round has gone out to the makers. */
   blocks: Block[];
   /** If the api sends it: the viewer's own membership in this guild. */
   myMembershipId?: number;
 };
+
+/** Saving and publishing answer with the whole page or with the round alone; fold either into the cache. */
+export function mergeRoundResponse(page: RoundPage | undefined, response: unknown): RoundPage | undefined {
+  if (!page || !response || typeof response !== 'object') return page;
+  if ('blocks' in response && 'canEdit' in response) return response as RoundPage;
+  if ('status' in response && 'title' in response) return { ...page, round: response as Round };
+  return page;
+}
 
 export const roundPath = (guildId: string, beeId: string, month: string) =>
   `${beePath(guildId, beeId)}/rounds/${encodeURIComponent(month)}`;

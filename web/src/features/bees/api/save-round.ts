@@ -6,6 +6,7 @@ import { beeQueryOptions } from './get-bee';
 import {
   roundPath,
   roundQueryOptions,
+  mergeRoundResponse,
   type DeliveryMethod,
   type FabricSource,
   type Round,
@@ -95,7 +96,13 @@ export const roundSchema = yup.object({
   sendDate: yup.string().test('date', 'Choose a date.', (v) => !v || DATE.test(v)),
   sendTime: yup.string().test('time', 'Choose a time, like 08:00.', (v) => !v || /^\d{2}:\d{2}$/.test(v)),
   deliveryMethod: yup.string().oneOf(['mail', 'meeting']).required(),
-  deliveryAddress: yup.string().max(1000, 'Keep the address under 1,000 characters.'),
+  deliveryAddress: yup
+    .string()
+    .max(1000, 'Keep the address under 1,000 characters.')
+    .when('deliveryMethod', {
+      is: 'mail',
+      then: (schema) => schema.trim().required('Give the address makers mail their blocks to.'),
+    }),
   meetingDetails: yup.string().max(1000, 'Keep the meeting details under 1,000 characters.'),
 });
 
@@ -126,7 +133,7 @@ export function toRoundInput(values: RoundFormValues): RoundInput {
 }
 
 export const saveRound = (guildId: string, beeId: string, month: string, input: RoundInput) =>
-  api.put<Round>(roundPath(guildId, beeId, month), input);
+  api.put<Round | RoundPage>(roundPath(guildId, beeId, month), input);
 
 export function useSaveRound(guildId: string, beeId: string, month: string) {
   const queryClient = useQueryClient();
@@ -134,9 +141,7 @@ export function useSaveRound(guildId: string, beeId: string, month: string) {
   return useMutation({
     mutationFn: (input: RoundInput) => saveRound(guildId, beeId, month, input),
     onSuccess: async (round) => {
-      if (round && typeof round === 'object') {
-        queryClient.setQueryData<RoundPage>(key, (page) => (page ? { ...page, round } : page));
-      }
+      queryClient.setQueryData<RoundPage>(key, (page) => mergeRoundResponse(page, round));
       await Promise.all([
         queryClient.invalidateQueries({ queryKey: key }),
         // The rotation table shows each round's title and status.

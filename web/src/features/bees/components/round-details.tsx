@@ -3,6 +3,9 @@ import type { Round, RoundPage } from '../api/get-round';
 import { RoundFiles } from './round-files';
 import { SizePair, sizeText } from './size-preview';
 
+/** "1/4" → "1/4 in"; texts that already name the unit stay as they are. */
+const inchText = (text: string) => (/in|"/.test(text) ? text : `${text} in`);
+
 type RoundDetailsProps = {
   guildId: string;
   beeId: string;
@@ -43,7 +46,7 @@ function Swatches({ round }: { round: Round }) {
 }
 
 export function RoundDetails({ guildId, beeId, page, round, timeZone, isBeeMember }: RoundDetailsProps) {
-  const sendAt = round.sendAt ?? page.sendAt;
+  const sendAt = round.sendAt ?? page.sendAt ?? page.defaultSendAt;
   const untrimmed = round.trimMode === 'untrimmed';
   return (
     <div className="round-details">
@@ -51,11 +54,11 @@ export function RoundDetails({ guildId, beeId, page, round, timeZone, isBeeMembe
       <dl className="facts facts-wide mt-3">
         <div>
           <dt>Seam allowance</dt>
-          <dd>{round.seamAllowanceText} in</dd>
+          <dd>{inchText(round.seamAllowanceText)}</dd>
         </div>
         <div>
           <dt>Tolerance</dt>
-          <dd>within {round.toleranceText} in of the unfinished size</dd>
+          <dd>within {inchText(round.toleranceText)} of the unfinished size</dd>
         </div>
         <div>
           <dt>Trimming</dt>

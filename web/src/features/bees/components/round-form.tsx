@@ -149,7 +149,6 @@ function DeliveryFields() {
         <TextareaField
           name="deliveryAddress"
           label="Address to mail blocks to"
-          optional
           rows={3}
           autoComplete="street-address"
           help="Only makers in this bee see it."
@@ -234,7 +233,7 @@ export function RoundForm({ round, month, handover, onSave, footer }: RoundFormP
                 <TextField name="sendDate" type="date" label="E-mail the makers on" optional help="Usually the 1st of the month." />
               </div>
               <div className="col-12 col-sm-6">
-                <TextField name="sendTime" type="time" label="At" optional help="Guild time, for example 08:00." />
+                <TextField name="sendTime" type="time" label="Time of the e-mail" optional help="Guild time, for example 08:00." />
               </div>
             </div>
           </fieldset>

@@ -95,9 +95,13 @@ export function LayoutResult({ result, onPick, picking }: LayoutResultProps) {
               </p>
               {pieces && (
                 <p className="mb-0">
-                  Sashing: {pieces.strips} {pieces.strips === 1 ? 'strip' : 'strips'}
-                  {pieces.cornerstones > 0 && ` and ${pieces.cornerstones} cornerstones`}.
-                  {pieces.description && <span className="d-block text-body-secondary">{pieces.description}</span>}
+                  Sashing to cut:{' '}
+                  {pieces.description ?? (
+                    <>
+                      {pieces.strips} {pieces.strips === 1 ? 'strip' : 'strips'}
+                      {pieces.cornerstones > 0 && ` and ${pieces.cornerstones} cornerstones`}.
+                    </>
+                  )}
                 </p>
               )}
             </Card.Body>
