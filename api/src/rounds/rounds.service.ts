@@ -92,6 +92,7 @@ export class RoundsService {
       isOrganiser: c.isOrganiser,
       isMaker: c.isBeeMember && !c.isQueen,
       isBeeMember: c.isBeeMember,
+      myMembershipId: me.id,
       defaultSendAt: defaultSendAt(month, c.bee.guild.timeZone),
       round: c.round ? await this.present(c.round, c.isBeeMember) : null,
       blocks,

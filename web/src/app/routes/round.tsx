@@ -169,7 +169,7 @@ export default function RoundRoute() {
               My block
             </h2>
             <MyBlockForm
-              key={`${myBlock.status}-${myBlock.trackingNumber ?? ''}`}
+              key={myBlock.membershipId}
               block={myBlock}
               deliveryMethod={round?.deliveryMethod ?? bee.data.handover}
               onSave={(input) => updateBlock.mutateAsync({ membershipId: myBlock.membershipId, input })}

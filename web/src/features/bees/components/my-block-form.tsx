@@ -36,7 +36,7 @@ export function MyBlockForm({ block, deliveryMethod, onSave }: MyBlockFormProps)
         helpers.setStatus(undefined);
         try {
           await onSave(toUpdateBlockInput(values));
-          helpers.setStatus({ success: `Saved: ${blockStatusLabel(values.status).toLowerCase()}.` });
+          helpers.resetForm({ values, status: { success: `Saved: ${blockStatusLabel(values.status).toLowerCase()}.` } });
         } catch (error) {
           applyServerErrors(error, helpers, values);
         }

@@ -57,7 +57,7 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
                     <span className="text-body-secondary">No round</span>
                   ) : (
                     <>
-                      <span className="d-block">
+                      <span className="me-3">
                         {roundStatusLabel(row)}
                         {row.round?.title && <> · {row.round.title}</>}
                       </span>
@@ -68,7 +68,7 @@ export function RotationTable({ guildId, bee, thisMonth }: RotationTableProps) {
                   )}
                 </td>
                 {bee.isOrganiser && (
-                  <td data-label={editable ? 'Skip' : undefined}>
+                  <td data-label={editable ? 'Skip' : undefined} className="no-label">
                     {editable ? (
                       <Form.Check id={`skip-${row.month}`}>
                         <Form.Check.Input

@@ -185,7 +185,8 @@ export function RoundForm({ round, month, handover, onSave, footer }: RoundFormP
         helpers.setStatus(undefined);
         try {
           await onSave(toRoundInput(values));
-          helpers.setStatus({ success: 'The round is saved.' });
+          // What was saved is the new starting point, so "unsaved changes" means changes since now.
+          helpers.resetForm({ values, status: { success: 'The round is saved.' } });
         } catch (error) {
           applyServerErrors(error, helpers, values);
         }

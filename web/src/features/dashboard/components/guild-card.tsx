@@ -35,7 +35,7 @@ export function GuildCard({ guild }: { guild: DashboardGuild }) {
             <ul className="list-unstyled mb-0">
               {guild.bees.map((bee) => (
                 <li key={bee.id} className="mb-1">
-                  <Link to={paths.bee.getHref(guild.id, bee.id)} className="fw-bold">
+                  <Link to={paths.bee.getHref(guild.id, bee.id)} className="fw-bold tap-link">
                     {bee.name}
                   </Link>
                   {bee.description && <span className="d-block text-body-secondary small">{bee.description}</span>}
