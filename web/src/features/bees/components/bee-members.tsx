@@ -27,8 +27,9 @@ export function BeeMembers({ guildId, bee }: { guildId: string; bee: Bee }) {
           {members.map((member) => {
             const isOrganiser = member.membershipId === bee.organiser.membershipId || member.status === 'organiser';
             return (
-              <li key={member.membershipId} className="border-bottom py-2 d-flex flex-wrap align-items-center gap-2">
-                <div className="flex-grow-1">
+              <li key={member.membershipId} className="border-bottom py-2 d-flex align-items-center gap-2">
+                {/* The name wraps inside its own column, so the button keeps its place on every row. */}
+                <div className="flex-grow-1" style={{ minWidth: 0 }}>
                   <strong>{member.name}</strong>{' '}
                   <Badge bg={member.status === 'invited' ? 'light' : 'primary'} text={member.status === 'invited' ? 'dark' : undefined} className="status-badge border">
                     {isOrganiser ? 'Organiser' : memberStatusLabel(member.status)}
