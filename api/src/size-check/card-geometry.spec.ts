@@ -14,7 +14,11 @@ describe('the reference card', () => {
       expect(x2).toBeLessThanOrEqual(CARD.widthMm);
       expect(y2).toBeLessThanOrEqual(CARD.heightMm);
     }
-    expect(CARD.inchBar.x + CARD.inchBar.lengthMm).toBeLessThan(CARD.markers[1].x);
+    const markerRows = [CARD.markers[0].y, CARD.markers[3].y].map((y) => [y, y + CARD.markerSizeMm]);
+    for (const bar of [CARD.inchBar, CARD.cmBar]) {
+      expect(bar.x + bar.lengthMm).toBeLessThanOrEqual(CARD.widthMm - 6);
+      for (const [top, bottom] of markerRows) expect(bar.y < top - 4 || bar.y > bottom + 4).toBe(true);
+    }
   });
   it('turns a ruler reading into a print scale and refuses more than 3% off', () => {
     // TRADE.md §2.2 (S32): a 1 inch square printed 15/16 is 6.25% small.

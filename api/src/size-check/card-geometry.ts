@@ -18,9 +18,9 @@ export const CARD = {
   ],
   /** The test square, 1 inch a side (TRADE.md §2.2). */
   testSquare: { x: 36, y: 8, sizeMm: 25.4 },
-  /** Long ruler bars the maker checks with her own ruler: 6 inches and 15 cm. */
-  inchBar: { x: 36, y: 44, lengthMm: 6 * 25.4, label: '6 inches' },
-  cmBar: { x: 36, y: 66, lengthMm: 150, label: '15 cm' },
+  /** Long ruler bars the maker checks with her own ruler: 6 inches and 15 cm, between the marker rows. */
+  inchBar: { x: 14, y: 44, lengthMm: 6 * 25.4, label: '6 inches' },
+  cmBar: { x: 14, y: 66, lengthMm: 150, label: '15 cm' },
 };
 
 /** The four corners of a marker in card millimetres, in ArUco's order: TL, TR, BR, BL. */
@@ -48,7 +48,8 @@ export function printScale(nominalMm: number, readMm: number): number {
 
 export function printScaleProblem(scale: number): string | null {
   if (!Number.isFinite(scale) || scale <= 0) return 'Enter what your ruler reads for the long bar.';
-  if (Math.abs(scale - 1) > MAX_PRINT_SCALE_ERROR) {
+  // A hair of slack so that exactly 3% (a reading of 103%) is still accepted despite rounding.
+  if (Math.abs(scale - 1) > MAX_PRINT_SCALE_ERROR + 1e-9) {
     const percent = Math.round(scale * 1000) / 10;
     return (
       `Your card printed at about ${percent}% of its true size, more than 3% off. ` +
