@@ -4,6 +4,7 @@ import { BeeMember } from './bees/bee-member.entity';
 import { Bee } from './bees/bee.entity';
 import { BeeSlot } from './bees/bee-slot.entity';
 import { RoundBlock } from './rounds/round-block.entity';
+import { SizeCheck } from './size-check/size-check.entity';
 import { RoundFile } from './rounds/round-file.entity';
 import { Round } from './rounds/round.entity';
 import { Guild } from './guilds/guild.entity';
@@ -29,4 +30,5 @@ export const ENTITIES = [
   Round,
   RoundFile,
   RoundBlock,
+  SizeCheck,
 ];
