@@ -18,6 +18,7 @@ import { BeesModule } from './bees/bees.module';
 import { HealthModule } from './health/health.module';
 import { LayoutModule } from './layout/layout.module';
 import { RoundsModule } from './rounds/rounds.module';
+import { SizeCheckModule } from './size-check/size-check.module';
 import { StorageModule } from './storage/storage.module';
 import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -56,6 +57,7 @@ import { ProfileModule } from './profile/profile.module';
     BeesModule,
     RoundsModule,
     LayoutModule,
+    SizeCheckModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

@@ -59,6 +59,12 @@ const ACCESS: Record<string, Access> = {
   'PATCH /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId': 'member',
   'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/nudges': 'member',
   'POST /api/layout-plans': 'signed-in',
+  // Size checks: maker, queen and organiser rights are checked per block in size-checks.e2e-spec.ts.
+  'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId/photos': 'member',
+  'POST /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId/manual-size': 'member',
+  'GET /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId/size-checks': 'member',
+  'GET /api/guilds/:guildId/size-checks/:checkId/images/:kind': 'member',
+  'GET /api/size-check/card.pdf': 'signed-in',
 };
 
 interface Layer {
@@ -136,6 +142,8 @@ describe('every route against the access table (real MariaDB)', () => {
         .replace(':beeId', '999999')
         .replace(':month', '2027-01')
         .replace(':fileId', '1')
+        .replace(':checkId', '999999')
+        .replace(':kind', 'display')
         .replace(':token', 'no-such-token-000000000000')
         .replace(':id', 'none')
         .replace('/*', '/index.html');

@@ -26,7 +26,7 @@ import { RoundsService } from './rounds.service';
 
 const id = () => new ParseIntPipe({ errorHttpStatusCode: 404 });
 
-class MonthPipe implements PipeTransform<string, string> {
+export class MonthPipe implements PipeTransform<string, string> {
   transform(value: string): string {
     if (!MONTH_PATTERN.test(value)) throw new NotFoundException('Months are written like 2027-03.');
     return value;

@@ -9,6 +9,6 @@ import { RoundsService } from './rounds.service';
   imports: [BeesModule],
   controllers: [RoundsController],
   providers: [RoundsService, RoundMailer, BeesScheduler],
-  exports: [RoundMailer, BeesScheduler],
+  exports: [RoundMailer, BeesScheduler, RoundsService],
 })
 export class RoundsModule {}

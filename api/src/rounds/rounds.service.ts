@@ -20,6 +20,7 @@ import type { RoundInputDto, UpdateBlockDto } from './dto/round.dto';
 import { renderInstructions } from './markdown';
 import { isLate } from './block-status';
 import { RoundBlock } from './round-block.entity';
+import { latestSizeChecks } from '../size-check/size-check-presenter';
 import { RoundFile } from './round-file.entity';
 import { RoundMailer } from './round-mailer.service';
 import { defaultSendAt, inchText, isValidDate, localDate, roundSizes, zonedInstant } from './round-presenter';
@@ -71,6 +72,14 @@ export class RoundsService {
     return { ...access, slot, round, isQueen, canEdit: isQueen || access.isOrganiser, isBeeMember };
   }
 
+  /** A maker's block with what the caller is to the round; 404 when the block does not exist yet. */
+  async blockContext(me: Membership, beeId: number, month: string, makerId: number) {
+    const c = await this.context(me, beeId, month);
+    const block = c.round ? await this.em.findOne(RoundBlock, { round: c.round, maker: makerId }, { populate: ['maker.user'] }) : null;
+    if (!c.round || !block) throw new NotFoundException('There is no block from that maker for this round yet.');
+    return { ...c, round: c.round, block, isOwn: makerId === me.id };
+  }
+
   private assertCanEdit(c: RoundContext) {
     if (!c.canEdit) throw new ForbiddenException("Only this month's queen or the bee's organiser can change the round.");
   }
@@ -108,7 +117,8 @@ export class RoundsService {
       { populate: ['maker.user'], orderBy: { maker: { user: { name: 'asc' } } } },
     );
     const today = this.today(c);
-    return rows.map((b) => this.presentBlock(b, round, today));
+    const checks = await latestSizeChecks(this.em, rows, c.bee.guild.id);
+    return rows.map((b) => ({ ...this.presentBlock(b, round, today), sizeCheck: checks.get(b.id) ?? null }));
   }
 
   private presentBlock(b: RoundBlock, round: Round, today: string) {

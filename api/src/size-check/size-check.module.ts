@@ -1,0 +1,12 @@
+import { Module } from '@nestjs/common';
+import { RoundsModule } from '../rounds/rounds.module';
+import { PhotoProcessor } from './photo-processor.service';
+import { SizeChecksController } from './size-checks.controller';
+import { SizeChecksService } from './size-checks.service';
+
+@Module({
+  imports: [RoundsModule],
+  controllers: [SizeChecksController],
+  providers: [SizeChecksService, PhotoProcessor],
+})
+export class SizeCheckModule {}
