@@ -193,6 +193,7 @@ async function dev() {
 /** `npm test`: its own MariaDB and ports, every test tier, then everything stopped. */
 async function test() {
   ensureAptPackage('/usr/bin/chromium', 'chromium');
+  ensureAptPackage('/usr/bin/pdftoppm', 'poppler-utils');
   const dir = join(DATA, 'test');
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
@@ -212,6 +213,8 @@ async function test() {
     LOG_LEVEL: 'warn',
     SESSION_SECRET: randomBytes(32).toString('hex'),
     OUTBOX_POLL_MS: '100',
+    // jimp's CommonJS build imports an ES module on demand, which jest allows only with this flag.
+    NODE_OPTIONS: `${process.env.NODE_OPTIONS ?? ''} --experimental-vm-modules`.trim(),
   });
   await migrateAndSeed(jestEnv, false);
   const results: [string, number][] = [];

@@ -101,6 +101,12 @@ export async function markerBits(): Promise<Map<number, boolean[][]>> {
   return result;
 }
 
+/** Where the card's top-left corner lands on the page, in points from the page's top-left. */
+export function cardOriginPt(paper: Paper): { left: number; top: number } {
+  const [pageW] = PAGE_SIZE_PT[paper];
+  return { left: (pageW - mm(CARD.widthMm)) / 2, top: mm(CARD_TOP_MM) };
+}
+
 export async function renderReferenceCard(paper: Paper, options: RenderOptions = {}): Promise<Buffer> {
   if (!PAPERS.includes(paper)) throw new Error(`Unknown paper ${String(paper)}`);
   const bits = await markerBits();
@@ -137,8 +143,7 @@ export async function renderReferenceCard(paper: Paper, options: RenderOptions =
   doc.registerFont('bold', f.bold);
   doc.registerFont('italic', f.italic);
 
-  const left = (pageW - mm(CARD.widthMm)) / 2;
-  const top = mm(CARD_TOP_MM);
+  const { left, top } = cardOriginPt(paper);
   /** Card millimetres to page points. */
   const X = (xMm: number) => left + mm(xMm);
   const Y = (yMm: number) => top + mm(yMm);

@@ -1,0 +1,708 @@
+/**
+ * Measures a quilt block photographed beside the printed reference card.
+ *
+ * The card's four ArUco markers give a homography from the photo to the table's plane in millimetres
+ * (TRADE.md §7.1, §7.3: tilt makes one scale factor misread by more than the 1/8 inch tolerance).
+ * The plane is then viewed top-down twice: coarsely over everything the photo sees, to tell the
+ * block from the table, and finely around the block, where each edge is located to a fraction of
+ * a pixel and fitted with a line that shrugs off hanging threads and ragged fabric.
+ */
+import { CARD, markerCorners } from '../card-geometry';
+import {
+  applyHomography,
+  classifyBySide,
+  cornerAngles,
+  diagonals,
+  invertHomography,
+  lineIntersection,
+  multiplyHomography,
+  normalizeHomography,
+  orderCorners,
+  otsuThreshold,
+  quadSize,
+  type Homography,
+  type Line,
+  type Point,
+} from './geometry';
+import { loadOpenCv } from './opencv';
+
+export type RefusalReason =
+  | 'card_not_found'
+  | 'block_not_found'
+  | 'block_touches_edge'
+  | 'too_blurry'
+  | 'too_dark'
+  | 'low_contrast'
+  | 'too_small';
+
+export interface MeasureSuccess {
+  ok: true;
+  widthMm: number;
+  heightMm: number;
+  diagonalsMm: [number, number];
+  cornerAnglesDeg: [number, number, number, number];
+  /** Block corners in the photo, TL, TR, BR, BL as the card sees them. */
+  cornersPx: Point[];
+  /** Each detected marker's corners in the photo. */
+  cardCornersPx: Point[][];
+  markersFound: number;
+  /** Scale of the top-down view the edges were found in. */
+  pxPerMm: number;
+  /** Photo pixels → real millimetres on the table (print scale applied), row-major, last entry 1. */
+  homography: number[];
+  timingsMs: Record<string, number>;
+}
+
+export interface MeasureRefusal {
+  ok: false;
+  reason: RefusalReason;
+  message: string;
+}
+
+export type MeasureResult = MeasureSuccess | MeasureRefusal;
+
+export interface RgbaImage {
+  data: Uint8Array | Uint8ClampedArray;
+  width: number;
+  height: number;
+}
+
+export interface MeasureOptions {
+  /** How big the card came out of the printer relative to its nominal size (1 = exactly 100%). */
+  printScale?: number;
+}
+
+/** Top-down view for edge finding: a 16 inch block (16 1/2 unfinished, 419 mm) plus margins stays within ~2000 px. */
+export const RECTIFIED_PX_PER_MM = 4.5;
+const COARSE_MAX_PX = 1400;
+const MIN_BLOCK_MM = 2 * 25.4;
+const MIN_MEAN_LUMINANCE = 40;
+/** Coarser than any photo we accept samples the card, so the score reflects blur in mm, not the photo's size. */
+const MARKER_VIEW_PX_PER_MM = 2;
+const MIN_MARKER_SHARPNESS = 0.16;
+/** Lab distance (L weighted by half) between block and table below which the two cannot be told apart. */
+const MIN_CONTRAST = 9;
+const CARD_MARGIN_MM = 6;
+const EDGE_SEARCH_MM = 3;
+
+const MESSAGES: Record<RefusalReason, string> = {
+  card_not_found:
+    'We could not find the printed card in the photo. Lay the whole card flat beside the block, with all four black corner squares showing, and take the photo again.',
+  block_not_found:
+    'We could not find the block in the photo. Lay the block flat on a plain surface next to the card, so that the whole block shows, and take the photo again.',
+  block_touches_edge:
+    'Part of the block is cut off at the edge of the photo. Step back a little, or move the block towards the middle, so that there is table showing all around it, and take the photo again.',
+  too_blurry:
+    'The photo is blurry. Hold the phone still (rest your elbows on the table if you can), tap the screen on the card to focus, and take the photo again.',
+  too_dark:
+    'The photo is too dark. Turn on a light or move near a window, without the phone casting a shadow over the block, and take the photo again.',
+  low_contrast:
+    'The block is too close in colour to the surface under it. Lay it on something of a different colour (a light sheet under a dark block, a dark towel under a light one) and take the photo again.',
+  too_small:
+    'The block looks smaller than 2 inches, too small to measure reliably. Make sure it is the block lying next to the card, and take the photo closer.',
+};
+
+function refuse(reason: RefusalReason): MeasureRefusal {
+  return { ok: false, reason, message: MESSAGES[reason] };
+}
+
+export async function measureBlockPhoto(image: RgbaImage, options: MeasureOptions = {}): Promise<MeasureResult> {
+  // The package's typings lack the aruco and several imgproc bindings this uses.
+  const cv: any = await loadOpenCv();
+  const printScale = options.printScale ?? 1;
+  if (!(printScale > 0)) throw new Error('printScale must be positive');
+  const started = performance.now();
+  const timingsMs: Record<string, number> = {};
+  let lap = started;
+  const tick = (name: string) => {
+    const now = performance.now();
+    timingsMs[name] = Math.round((now - lap) * 10) / 10;
+    lap = now;
+  };
+  const owned: { delete(): void }[] = [];
+  const own = <T extends { delete(): void }>(m: T): T => {
+    owned.push(m);
+    return m;
+  };
+
+  try {
+    // Wants a DOM ImageData; {data, width, height} is all it reads.
+    const rgba = own(cv.matFromImageData(image as any));
+    const rgb = own(new cv.Mat());
+    cv.cvtColor(rgba, rgb, cv.COLOR_RGBA2RGB);
+    const gray = own(new cv.Mat());
+    cv.cvtColor(rgba, gray, cv.COLOR_RGBA2GRAY);
+    tick('convert');
+
+    if (cv.mean(gray)[0] < MIN_MEAN_LUMINANCE) return refuse('too_dark');
+
+    const markers = detectMarkers(cv, gray, own);
+    tick('detect');
+    if (markers.length < 3) return refuse(globallyBlurry(cv, gray, own) ? 'too_blurry' : 'card_not_found');
+
+    const H = cardHomography(cv, markers, printScale, own);
+    tick('homography');
+    if (!H) return refuse('card_not_found');
+
+    const sharp = markerSharpness(cv, gray, markers, H, printScale, own); if (process.env.SV_DEBUG) console.log("sharp", sharp);
+    if (sharp < MIN_MARKER_SHARPNESS) return refuse("too_blurry");
+    tick('sharpness');
+
+    const coarse = findBlockCoarsely(cv, rgb, H, printScale, own);
+    tick('coarse');
+    if ('reason' in coarse) return refuse(coarse.reason);
+
+    const fine = fitBlockEdges(cv, rgb, H, coarse, own);
+    tick('fine');
+    if ('reason' in fine) return refuse(fine.reason);
+
+    const cornersMm = orderCorners(fine.cornersMm);
+    const { width, height } = quadSize(cornersMm);
+    if (Math.min(width, height) < MIN_BLOCK_MM) return refuse('too_small');
+    const Hinv = invertHomography(H);
+    timingsMs.total = Math.round((performance.now() - started) * 10) / 10;
+    return {
+      ok: true,
+      widthMm: width,
+      heightMm: height,
+      diagonalsMm: diagonals(cornersMm),
+      cornerAnglesDeg: cornerAngles(cornersMm),
+      cornersPx: applyHomography(Hinv, cornersMm),
+      cardCornersPx: markers.map((m) => m.corners),
+      markersFound: markers.length,
+      pxPerMm: RECTIFIED_PX_PER_MM,
+      homography: H,
+      timingsMs,
+    };
+  } finally {
+    for (const m of owned.reverse()) m.delete();
+  }
+}
+
+type Own = <T extends { delete(): void }>(m: T) => T;
+
+interface Marker {
+  id: number;
+  corners: Point[];
+}
+
+function detectMarkers(cv: any, gray: any, own: Own): Marker[] {
+  const dictionary = own(cv.getPredefinedDictionary(cv.DICT_4X4_50));
+  const params = own(new cv.aruco_DetectorParameters());
+  params.cornerRefinementMethod = cv.CORNER_REFINE_SUBPIX;
+  params.cornerRefinementWinSize = 5;
+  params.cornerRefinementMaxIterations = 50;
+  params.cornerRefinementMinAccuracy = 0.01;
+  const refine = own(new cv.aruco_RefineParameters(10, 3, true));
+  const detector = own(new cv.aruco_ArucoDetector(dictionary, params, refine));
+  const corners = own(new cv.MatVector());
+  const ids = own(new cv.Mat());
+  const rejected = own(new cv.MatVector());
+  detector.detectMarkers(gray, corners, ids, rejected);
+  const byId = new Map<number, Marker & { perimeter: number }>();
+  for (let i = 0; i < ids.rows; i++) {
+    const id = ids.data32S[i];
+    if (!CARD.markers.some((m) => m.id === id)) continue;
+    const c = corners.get(i);
+    const d = c.data32F;
+    const pts: Point[] = [0, 1, 2, 3].map((k) => [d[2 * k], d[2 * k + 1]]);
+    c.delete();
+    const perimeter = pts.reduce((s, p, k) => s + Math.hypot(p[0] - pts[(k + 1) % 4][0], p[1] - pts[(k + 1) % 4][1]), 0);
+    // A second copy of an id is a misread elsewhere in the photo: keep the larger, the card's.
+    const seen = byId.get(id);
+    if (!seen || perimeter > seen.perimeter) byId.set(id, { id, corners: pts, perimeter });
+  }
+  return [...byId.values()].sort((a, b) => a.id - b.id).map(({ id, corners: c }) => ({ id, corners: c }));
+}
+
+/** Photo px → real mm. Refuses markers that do not sit where the card puts them. */
+function cardHomography(cv: any, markers: Marker[], printScale: number, own: Own): Homography | null {
+  const src = markers.flatMap((m) => m.corners.flat());
+  const dst = markers.flatMap((m) => markerCorners(m.id).flatMap(([x, y]) => [x * printScale, y * printScale]));
+  const srcMat = own(cv.matFromArray(src.length / 2, 1, cv.CV_64FC2, src));
+  const dstMat = own(cv.matFromArray(dst.length / 2, 1, cv.CV_64FC2, dst));
+  const h = own(cv.findHomography(srcMat, dstMat, 0));
+  if (h.rows !== 3) return null;
+  const H = normalizeHomography(Array.from(h.data64F as Float64Array));
+  // A misread marker would drag the fit: every corner must land within a millimetre of its place.
+  const mapped = applyHomography(H, markers.flatMap((m) => m.corners));
+  for (let i = 0; i < mapped.length; i++)
+    if (Math.hypot(mapped[i][0] - dst[2 * i], mapped[i][1] - dst[2 * i + 1]) > 1) return null;
+  return H;
+}
+
+/** The Laplacian's spread over the markers, seen top-down at a fixed scale and divided by their contrast, so it compares across photo sizes. */
+function markerSharpness(cv: any, gray: any, markers: Marker[], H: Homography, printScale: number, own: Own): number {
+  const scale = MARKER_VIEW_PX_PER_MM;
+  let best = 0;
+  for (const m of markers) {
+    const [x0, y0] = markerCorners(m.id)[0].map((v) => (v - 2) * printScale);
+    const size = Math.ceil((CARD.markerSizeMm + 4) * printScale * scale);
+    const T = multiplyHomography([scale, 0, -scale * x0, 0, scale, -scale * y0, 0, 0, 1], H);
+    const patch = own(new cv.Mat());
+    const Tm = own(cv.matFromArray(3, 3, cv.CV_64F, T));
+    cv.warpPerspective(gray, patch, Tm, new cv.Size(size, size), cv.INTER_AREA, cv.BORDER_REPLICATE, new cv.Scalar());
+    const lapl = own(new cv.Mat());
+    cv.Laplacian(patch, lapl, cv.CV_32F, 1, 1, 0, cv.BORDER_REPLICATE);
+    const mean = own(new cv.Mat());
+    const std = own(new cv.Mat());
+    cv.meanStdDev(lapl, mean, std);
+    const lapStd = std.data64F[0];
+    cv.meanStdDev(patch, mean, std);
+    const contrast = std.data64F[0];
+    if (contrast > 10) best = Math.max(best, lapStd / contrast);
+  }
+  return best;
+}
+
+/** Without a card to judge by: the photo's sharpest edges, at ~1000 px across, against its contrast. */
+function globallyBlurry(cv: any, gray: any, own: Own): boolean {
+  const f = Math.min(1, 1000 / Math.max(gray.cols, gray.rows));
+  const small = own(new cv.Mat());
+  cv.resize(gray, small, new cv.Size(Math.round(gray.cols * f), Math.round(gray.rows * f)), 0, 0, cv.INTER_AREA);
+  const gx = own(new cv.Mat());
+  const gy = own(new cv.Mat());
+  cv.Sobel(small, gx, cv.CV_32F, 1, 0, 3);
+  cv.Sobel(small, gy, cv.CV_32F, 0, 1, 3);
+  const mag = own(new cv.Mat());
+  cv.magnitude(gx, gy, mag);
+  const g = mag.data32F as Float32Array;
+  const sortedG = Float32Array.from(g).sort();
+  const p = Array.from(small.data as Uint8Array).sort((a, b) => a - b);
+  const contrast = p[Math.floor(p.length * 0.99)] - p[Math.floor(p.length * 0.01)];
+  const steepest = sortedG[Math.floor(sortedG.length * 0.999)] / 8;
+  // A step of contrast C blurred by σ px has slope C / (σ √(2π)): this is σ at ~1000 px across.
+  const sigma = contrast / (Math.sqrt(2 * Math.PI) * Math.max(steepest, 1e-6));
+  return sigma > 2.5;
+}
+
+interface Coarse {
+  /** Real-mm rectangle to look at closely. */
+  region: [number, number, number, number];
+  seed: Point;
+  centres: number[][];
+  threshold: number;
+}
+
+/** L counts half: shading and the light's fall-off change lightness far more than colour. */
+const L_WEIGHT = 0.5;
+
+function labDistance(lab: Float32Array, centres: number[][]): Float32Array {
+  const n = lab.length / 3;
+  const out = new Float32Array(n);
+  for (let i = 0; i < n; i++) {
+    const L = lab[3 * i] * L_WEIGHT;
+    const a = lab[3 * i + 1];
+    const b = lab[3 * i + 2];
+    let best = Infinity;
+    for (const c of centres) {
+      const d = (L - c[0]) ** 2 + (a - c[1]) ** 2 + (b - c[2]) ** 2;
+      if (d < best) best = d;
+    }
+    out[i] = Math.sqrt(best);
+  }
+  return out;
+}
+
+function toLab(cv: any, rgb: any, blurPx: number, own: Own): Float32Array {
+  const f = own(new cv.Mat());
+  rgb.convertTo(f, cv.CV_32FC3, 1 / 255);
+  if (blurPx > 0) cv.GaussianBlur(f, f, new cv.Size(0, 0), blurPx, blurPx, cv.BORDER_REPLICATE);
+  const lab = own(new cv.Mat());
+  cv.cvtColor(f, lab, cv.COLOR_RGB2Lab);
+  return Float32Array.from(lab.data32F as Float32Array);
+}
+
+/** Deterministic k-means (farthest-point start) on Lab samples; the table may be patterned. */
+function kmeans(samples: number[][], k: number): number[][] {
+  if (!samples.length) return [[50 * L_WEIGHT, 0, 0]];
+  const dist2 = (p: number[], c: number[]) => (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2;
+  const centres = [samples[0].slice()];
+  while (centres.length < k) {
+    let far = samples[0];
+    let farD = -1;
+    for (const s of samples) {
+      const d = Math.min(...centres.map((c) => dist2(s, c)));
+      if (d > farD) {
+        farD = d;
+        far = s;
+      }
+    }
+    if (farD < 4) break;
+    centres.push(far.slice());
+  }
+  for (let iter = 0; iter < 12; iter++) {
+    const sums = centres.map(() => [0, 0, 0, 0]);
+    for (const s of samples) {
+      let best = 0;
+      for (let c = 1; c < centres.length; c++) if (dist2(s, centres[c]) < dist2(s, centres[best])) best = c;
+      sums[best][0] += s[0];
+      sums[best][1] += s[1];
+      sums[best][2] += s[2];
+      sums[best][3] += 1;
+    }
+    sums.forEach((s, c) => {
+      if (s[3]) centres[c] = [s[0] / s[3], s[1] / s[3], s[2] / s[3]];
+    });
+  }
+  // A cluster of a handful of samples is more likely the block's corner than the table.
+  const counts = centres.map(() => 0);
+  for (const s of samples) {
+    let best = 0;
+    for (let c = 1; c < centres.length; c++) if (dist2(s, centres[c]) < dist2(s, centres[best])) best = c;
+    counts[best]++;
+  }
+  return centres.filter((_, c) => counts[c] >= samples.length * 0.03);
+}
+
+function photoPxPerMm(H: Homography, at: Point): number {
+  const Hinv = invertHomography(H);
+  const [a, b, c] = applyHomography(Hinv, [at, [at[0] + 1, at[1]], [at[0], at[1] + 1]]);
+  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])));
+}
+
+/** Warps (a suitably shrunk copy of) the photo to a top-down view of the real-mm rectangle at `pxPerMm`. */
+function rectify(cv: any, rgb: any, H: Homography, region: [number, number, number, number], pxPerMm: number, own: Own) {
+  const [x0, y0, x1, y1] = region;
+  const width = Math.max(1, Math.round((x1 - x0) * pxPerMm));
+  const height = Math.max(1, Math.round((y1 - y0) * pxPerMm));
+  const photoScale = photoPxPerMm(H, [(x0 + x1) / 2, (y0 + y1) / 2]);
+  // Shrink first when the photo is much finer than the view, or warping would alias patterns.
+  const shrink = Math.min(1, (1.5 * pxPerMm) / photoScale);
+  let src = rgb;
+  let Hs = H;
+  if (shrink < 0.95) {
+    src = own(new cv.Mat());
+    cv.resize(rgb, src, new cv.Size(Math.round(rgb.cols * shrink), Math.round(rgb.rows * shrink)), 0, 0, cv.INTER_AREA);
+    // Pixel centres: x_full = (x_small + 0.5) / shrink - 0.5.
+    const s = 1 / shrink;
+    Hs = multiplyHomography(H, [s, 0, 0.5 * s - 0.5, 0, s, 0.5 * s - 0.5, 0, 0, 1]);
+  }
+  const T = multiplyHomography([pxPerMm, 0, -pxPerMm * x0 - 0.5, 0, pxPerMm, -pxPerMm * y0 - 0.5, 0, 0, 1], Hs);
+  const Tm = own(cv.matFromArray(3, 3, cv.CV_64F, T));
+  const view = own(new cv.Mat());
+  cv.warpPerspective(src, view, Tm, new cv.Size(width, height), cv.INTER_LINEAR, cv.BORDER_CONSTANT, new cv.Scalar(0, 0, 0, 0));
+  // Where the photo has pixels at all, pulled in a little so its own edge never passes for an edge of the block.
+  const ones = own(new cv.Mat(src.rows, src.cols, cv.CV_8UC1, new cv.Scalar(255)));
+  const footprint = own(new cv.Mat());
+  cv.warpPerspective(ones, footprint, Tm, new cv.Size(width, height), cv.INTER_NEAREST, cv.BORDER_CONSTANT, new cv.Scalar(0));
+  const inner = own(new cv.Mat());
+  const k = own(cv.getStructuringElement(cv.MORPH_RECT, new cv.Size(5, 5)));
+  cv.erode(footprint, inner, k, new cv.Point(-1, -1), 1, cv.BORDER_CONSTANT, new cv.Scalar(0));
+  return { view, footprint: inner, width, height, x0, y0, pxPerMm };
+}
+
+/** Mask of the card and a margin around it, in a view's pixels (real mm → view px). */
+function cardMask(cv: any, view: { width: number; height: number; x0: number; y0: number; pxPerMm: number }, printScale: number, own: Own) {
+  const m = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
+  const g = CARD_MARGIN_MM;
+  const toView = ([x, y]: Point) => [Math.round((x - view.x0) * view.pxPerMm), Math.round((y - view.y0) * view.pxPerMm)];
+  const pts = [
+    [-g, -g],
+    [CARD.widthMm * printScale + g, -g],
+    [CARD.widthMm * printScale + g, CARD.heightMm * printScale + g],
+    [-g, CARD.heightMm * printScale + g],
+  ].flatMap((p) => toView(p as Point));
+  const poly = own(cv.matFromArray(4, 1, cv.CV_32SC2, pts));
+  const polys = own(new cv.MatVector());
+  polys.push_back(poly);
+  cv.fillPoly(m, polys, new cv.Scalar(255));
+  return m;
+}
+
+function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number, own: Own): Coarse | { reason: RefusalReason } {
+  // What the photo sees of the plane, kept to a sane distance from the card (grazing views run off to infinity).
+  const border: Point[] = [];
+  for (let k = 0; k <= 16; k++) {
+    const t = k / 16;
+    border.push([t * rgb.cols, 0], [t * rgb.cols, rgb.rows], [0, t * rgb.rows], [rgb.cols, t * rgb.rows]);
+  }
+  // A horizon inside the frame: the photo is too oblique to map (our camera limits are far from this).
+  if (!border.every(([x, y]) => H[6] * x + H[7] * y + H[8] > 0)) return { reason: 'card_not_found' };
+  const seen = applyHomography(H, border);
+  const cx = (CARD.widthMm * printScale) / 2;
+  const cy = (CARD.heightMm * printScale) / 2;
+  const reach = 1200;
+  const region: [number, number, number, number] = [
+    Math.max(cx - reach, Math.min(...seen.map((p) => p[0]))),
+    Math.max(cy - reach, Math.min(...seen.map((p) => p[1]))),
+    Math.min(cx + reach, Math.max(...seen.map((p) => p[0]))),
+    Math.min(cy + reach, Math.max(...seen.map((p) => p[1]))),
+  ];
+  const scale = Math.min(1, COARSE_MAX_PX / Math.max(region[2] - region[0], region[3] - region[1]));
+  const view = rectify(cv, rgb, H, region, scale, own);
+  const card = cardMask(cv, view, printScale, own);
+  const lab = toLab(cv, view.view, 1.5 * scale, own);
+  const n = view.width * view.height;
+  const foot = bytes(view.footprint);
+  const cardPx = bytes(card);
+
+  // The table: what lies in a band just inside the photo's edge (a block touching the edge is refused anyway).
+  const band = own(new cv.Mat());
+  const bandWidth = Math.max(3, Math.round(0.07 * Math.min(view.width, view.height)));
+  const k = own(cv.getStructuringElement(cv.MORPH_RECT, new cv.Size(2 * bandWidth + 1, 2 * bandWidth + 1)));
+  cv.erode(view.footprint, band, k, new cv.Point(-1, -1), 1, cv.BORDER_CONSTANT, new cv.Scalar(0));
+  const deep = bytes(band);
+  const candidates: number[] = [];
+  for (let i = 0; i < n; i++) if (foot[i] && !deep[i] && !cardPx[i]) candidates.push(i);
+  const step = Math.max(1, Math.floor(candidates.length / 4000));
+  const samples: number[][] = [];
+  for (let j = 0; j < candidates.length; j += step) {
+    const i = candidates[j];
+    samples.push([lab[3 * i] * L_WEIGHT, lab[3 * i + 1], lab[3 * i + 2]]);
+  }
+  const centres = kmeans(samples, 4);
+  const dist = labDistance(lab, centres);
+
+  const hist = new Array<number>(256).fill(0);
+  for (let i = 0; i < n; i++) if (foot[i] && !cardPx[i]) hist[Math.min(255, Math.round(dist[i] * 2))]++;
+  const { threshold: t2 } = otsuThreshold(hist);
+  const threshold = Math.max(t2 / 2, MIN_CONTRAST / 2);
+
+  const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
+  const md = mask.data as Uint8Array;
+  for (let i = 0; i < n; i++) md[i] = foot[i] && !cardPx[i] && dist[i] > threshold ? 255 : 0;
+  cleanMask(cv, mask, Math.max(1, Math.round(2 * scale)), Math.max(1, Math.round(4 * scale)), own);
+
+  const blob = largestComponent(cv, mask, own, (MIN_BLOCK_MM * scale * 0.5) ** 2);
+  if (!blob) {
+    // Either nothing stands out, or what does is too faint to trust.
+    return { reason: t2 / 2 < MIN_CONTRAST ? 'low_contrast' : 'block_not_found' };
+  }
+  // A block as alike to the table as the table is to itself: its inside must be clearly further off.
+  let inside = 0;
+  const ld = blob.labels as Int32Array;
+  const insideValues: number[] = [];
+  for (let i = 0; i < n; i++) if (ld[i] === blob.label) insideValues.push(dist[i]);
+  insideValues.sort((a, b) => a - b);
+  inside = insideValues[Math.floor(insideValues.length / 2)];
+  if (inside < MIN_CONTRAST) return { reason: 'low_contrast' };
+
+  // Any part of it on the photo's edge (the footprint was already pulled in by 2 px).
+  const edgeBand = own(new cv.Mat());
+  const k3 = own(cv.getStructuringElement(cv.MORPH_RECT, new cv.Size(5, 5)));
+  cv.erode(view.footprint, edgeBand, k3, new cv.Point(-1, -1), 1, cv.BORDER_CONSTANT, new cv.Scalar(0));
+  const eb = bytes(edgeBand);
+  for (let i = 0; i < n; i++) if (ld[i] === blob.label && !eb[i]) return { reason: 'block_touches_edge' };
+
+  const [bx, by, bw, bh] = blob.box;
+  if (Math.max(bw, bh) / scale < MIN_BLOCK_MM) return { reason: 'too_small' };
+  const margin = 15;
+  return {
+    region: [region[0] + bx / scale - margin, region[1] + by / scale - margin, region[0] + (bx + bw) / scale + margin, region[1] + (by + bh) / scale + margin],
+    seed: [region[0] + blob.centroid[0] / scale, region[1] + blob.centroid[1] / scale],
+    centres,
+    threshold,
+  };
+}
+
+function cleanMask(cv: any, mask: any, openR: number, closeR: number, own: Own) {
+  const ko = own(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(2 * openR + 1, 2 * openR + 1)));
+  const kc = own(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(2 * closeR + 1, 2 * closeR + 1)));
+  cv.morphologyEx(mask, mask, cv.MORPH_OPEN, ko);
+  cv.morphologyEx(mask, mask, cv.MORPH_CLOSE, kc);
+}
+
+function largestComponent(cv: any, mask: any, own: Own, minArea: number, near?: Point) {
+  const labels = own(new cv.Mat());
+  const stats = own(new cv.Mat());
+  const centroids = own(new cv.Mat());
+  const count = cv.connectedComponentsWithStats(mask, labels, stats, centroids, 8, cv.CV_32S);
+  let best = -1;
+  let bestScore = 0;
+  for (let l = 1; l < count; l++) {
+    const area = stats.intAt(l, cv.CC_STAT_AREA);
+    if (area < minArea) continue;
+    let score = area;
+    if (near) {
+      const x = stats.intAt(l, cv.CC_STAT_LEFT);
+      const y = stats.intAt(l, cv.CC_STAT_TOP);
+      const w = stats.intAt(l, cv.CC_STAT_WIDTH);
+      const h = stats.intAt(l, cv.CC_STAT_HEIGHT);
+      if (near[0] >= x && near[0] < x + w && near[1] >= y && near[1] < y + h) score *= 4;
+    }
+    if (score > bestScore) {
+      bestScore = score;
+      best = l;
+    }
+  }
+  if (best < 0) return null;
+  return {
+    label: best,
+    // Copied: a view into the WebAssembly heap goes stale when a later allocation grows it.
+    labels: Int32Array.from(labels.data32S as Int32Array),
+    box: [
+      stats.intAt(best, cv.CC_STAT_LEFT),
+      stats.intAt(best, cv.CC_STAT_TOP),
+      stats.intAt(best, cv.CC_STAT_WIDTH),
+      stats.intAt(best, cv.CC_STAT_HEIGHT),
+    ] as [number, number, number, number],
+    centroid: [centroids.doubleAt(best, 0), centroids.doubleAt(best, 1)] as Point,
+  };
+}
+
+function fitBlockEdges(cv: any, rgb: any, H: Homography, coarse: Coarse, own: Own): { cornersMm: Point[] } | { reason: RefusalReason } {
+  const f = RECTIFIED_PX_PER_MM;
+  const view = rectify(cv, rgb, H, coarse.region, f, own);
+  const lab = toLab(cv, view.view, 0.6, own);
+  const dist = labDistance(lab, coarse.centres);
+  const n = view.width * view.height;
+  const foot = bytes(view.footprint);
+  const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
+  const md = mask.data as Uint8Array;
+  for (let i = 0; i < n; i++) md[i] = foot[i] && dist[i] > coarse.threshold ? 255 : 0;
+  cleanMask(cv, mask, Math.round(1.5 * f), Math.round(3 * f), own);
+  const seed: Point = [(coarse.seed[0] - view.x0) * f, (coarse.seed[1] - view.y0) * f];
+  const blob = largestComponent(cv, mask, own, (MIN_BLOCK_MM * f * 0.5) ** 2, seed);
+  if (!blob) return { reason: 'block_not_found' };
+  const only = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
+  const od = only.data as Uint8Array;
+  for (let i = 0; i < n; i++) od[i] = blob.labels[i] === blob.label ? 255 : 0;
+  const contours = own(new cv.MatVector());
+  const hierarchy = own(new cv.Mat());
+  cv.findContours(only, contours, hierarchy, cv.RETR_EXTERNAL, cv.CHAIN_APPROX_NONE);
+  let contour: any = null;
+  let bestLen = 0;
+  for (let i = 0; i < contours.size(); i++) {
+    const c = own(contours.get(i));
+    if (c.rows > bestLen) {
+      bestLen = c.rows;
+      contour = c;
+    }
+  }
+  if (!contour) return { reason: 'block_not_found' };
+  const rect = cv.minAreaRect(contour);
+  const cd = contour.data32S as Int32Array;
+  const points: Point[] = [];
+  for (let i = 0; i < contour.rows; i++) points.push([cd[2 * i], cd[2 * i + 1]]);
+  const sides = classifyBySide(
+    points,
+    { center: [rect.center.x, rect.center.y], width: rect.size.width, height: rect.size.height, angleDeg: rect.angle },
+    { cornerFraction: 0.1, maxOffset: 8 * f },
+  );
+  const centre: Point = [rect.center.x, rect.center.y];
+  const lines: Line[] = [];
+  for (let s = 0; s < 4; s++) {
+    const pts = points.filter((_, i) => sides[i] === s);
+    if (pts.length < 20) return { reason: 'block_not_found' };
+    // Contour points are the block's outermost pixel centres; the boundary lies half a pixel further out.
+    const rough = fitLine(cv, pts, own);
+    const refined = refineEdge(rough, centre, pts, dist, view.width, view.height, f);
+    lines.push(refined.length >= 20 ? robustLine(cv, refined, own) : shiftOutward(rough, centre, 0.5));
+  }
+  const corners: Point[] = [];
+  for (let s = 0; s < 4; s++) {
+    const p = lineIntersection(lines[s], lines[(s + 3) % 4]);
+    if (!p) return { reason: 'block_not_found' };
+    corners.push([view.x0 + (p[0] + 0.5) / f, view.y0 + (p[1] + 0.5) / f]);
+  }
+  return { cornersMm: corners };
+}
+
+function fitLine(cv: any, pts: Point[], own: Own, dist = cv.DIST_HUBER): Line {
+  const m = own(cv.matFromArray(pts.length, 1, cv.CV_32FC2, pts.flat()));
+  const line = own(new cv.Mat());
+  cv.fitLine(m, line, dist, 0, 0.01, 0.01);
+  const d = line.data32F as Float32Array;
+  return { direction: [d[0], d[1]], point: [d[2], d[3]] };
+}
+
+/** Huber fit, then drop what lies off it by more than 3 robust sigmas (threads, fray) and fit again. */
+function robustLine(cv: any, pts: Point[], own: Own): Line {
+  let line = fitLine(cv, pts, own);
+  for (let pass = 0; pass < 2; pass++) {
+    const [nx, ny] = [-line.direction[1], line.direction[0]];
+    const res = pts.map(([x, y]) => (x - line.point[0]) * nx + (y - line.point[1]) * ny);
+    const abs = res.map(Math.abs).sort((a, b) => a - b);
+    const sigma = 1.4826 * abs[Math.floor(abs.length / 2)];
+    const limit = Math.max(3 * sigma, 0.3);
+    const kept = pts.filter((_, i) => Math.abs(res[i]) <= limit);
+    if (kept.length < 20) break;
+    line = fitLine(cv, kept, own, cv.DIST_L2);
+  }
+  return line;
+}
+
+function outwardNormal(line: Line, centre: Point): Point {
+  const len = Math.hypot(line.direction[0], line.direction[1]);
+  let nx = -line.direction[1] / len;
+  let ny = line.direction[0] / len;
+  if ((line.point[0] - centre[0]) * nx + (line.point[1] - centre[1]) * ny < 0) {
+    nx = -nx;
+    ny = -ny;
+  }
+  return [nx, ny];
+}
+
+function shiftOutward(line: Line, centre: Point, px: number): Line {
+  const [nx, ny] = outwardNormal(line, centre);
+  return { direction: line.direction, point: [line.point[0] + nx * px, line.point[1] + ny * px] };
+}
+
+/**
+ * Walks along a roughly fitted edge and, across it, finds where the colour distance from the table
+ * crosses halfway between the fabric's and the table's local levels: a sub-pixel edge point that a
+ * threshold's bias and the mask's pixel steps do not move.
+ */
+function refineEdge(line: Line, centre: Point, sidePoints: Point[], dist: Float32Array, width: number, height: number, f: number): Point[] {
+  const len = Math.hypot(line.direction[0], line.direction[1]);
+  const [dx, dy] = [line.direction[0] / len, line.direction[1] / len];
+  const [nx, ny] = outwardNormal(line, centre);
+  // Only as far as this side's own contour points reach: they already stop short of the corners.
+  const along = sidePoints.map(([x, y]) => (x - line.point[0]) * dx + (y - line.point[1]) * dy);
+  const tFrom = Math.min(...along);
+  const tTo = Math.max(...along);
+  const sample = (x: number, y: number): number => {
+    if (x < 0 || y < 0 || x >= width - 1 || y >= height - 1) return NaN;
+    const x0 = Math.floor(x);
+    const y0 = Math.floor(y);
+    const fx = x - x0;
+    const fy = y - y0;
+    const i = y0 * width + x0;
+    return (dist[i] * (1 - fx) + dist[i + 1] * fx) * (1 - fy) + (dist[i + width] * (1 - fx) + dist[i + width + 1] * fx) * fy;
+  };
+  const R = Math.round(EDGE_SEARCH_MM * f);
+  const out: Point[] = [];
+  const profile = new Float32Array(2 * R + 1);
+  for (let t = tFrom; t <= tTo; t += 1) {
+    const bx = line.point[0] + dx * t;
+    const by = line.point[1] + dy * t;
+    if (bx < R || by < R || bx >= width - R || by >= height - R) continue;
+    let valid = true;
+    for (let k = -R; k <= R; k++) {
+      const v = sample(bx + nx * k, by + ny * k);
+      if (Number.isNaN(v)) {
+        valid = false;
+        break;
+      }
+      profile[k + R] = v;
+    }
+    if (!valid) continue;
+    const inner = median(profile.subarray(0, Math.round(R * 0.6)));
+    const outer = median(profile.subarray(2 * R + 1 - Math.round(R * 0.6)));
+    if (inner - outer < MIN_CONTRAST) continue;
+    const level = (inner + outer) / 2;
+    // The crossing nearest the rough line, fabric side to table side.
+    let bestK = NaN;
+    for (let k = -R; k < R; k++) {
+      const a = profile[k + R] - level;
+      const b = profile[k + R + 1] - level;
+      if (a >= 0 && b < 0) {
+        const pos = k + a / (a - b);
+        if (Number.isNaN(bestK) || Math.abs(pos) < Math.abs(bestK)) bestK = pos;
+      }
+    }
+    if (Number.isNaN(bestK) || Math.abs(bestK) > R * 0.7) continue;
+    out.push([bx + nx * bestK, by + ny * bestK]);
+  }
+  return out;
+}
+
+function bytes(mat: any): Uint8Array {
+  return Uint8Array.from(mat.data as Uint8Array);
+}
+
+function median(values: Float32Array): number {
+  const s = Float32Array.from(values).sort();
+  return s[Math.floor(s.length / 2)];
+}
