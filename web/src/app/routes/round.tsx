@@ -8,7 +8,7 @@ import { PageSpinner } from '@/components/ui/page-spinner';
 import { usePageTitle } from '@/components/ui/page-title';
 import { paths } from '@/config/paths';
 import { useBee } from '@/features/bees/api/get-bee';
-import { useRound, type Round, type RoundPage } from '@/features/bees/api/get-round';
+import { roundQueryOptions, useRound, type Round, type RoundPage } from '@/features/bees/api/get-round';
 import { usePublishRound } from '@/features/bees/api/publish-round';
 import { useSaveRound } from '@/features/bees/api/save-round';
 import { useSendNudges } from '@/features/bees/api/send-nudges';
@@ -20,6 +20,8 @@ import { RoundFiles, UploadRoundFile } from '@/features/bees/components/round-fi
 import { RoundForm } from '@/features/bees/components/round-form';
 import { dashboardQueryOptions } from '@/features/dashboard/api/get-dashboard';
 import { useGuild } from '@/features/members/api/get-guild';
+import { BlockSizeCheck } from '@/features/size-check/components/block-size-check';
+import { SizeCheckPanel, type SizeTarget } from '@/features/size-check/components/size-check-panel';
 import { isApiError } from '@/lib/api-client';
 import { useUser } from '@/lib/auth';
 import { formatDateTime, formatMonth, isMonth } from '@/lib/dates';
@@ -112,6 +114,14 @@ export default function RoundRoute() {
   const isBeeMember = page.isBeeMember ?? (bee.data.isOrganiser || bee.data.myStatus === 'active' || bee.data.myStatus === 'organiser');
   const isOrganiser = page.isOrganiser ?? bee.data.isOrganiser;
   const sent = Boolean(round?.sentAt);
+  const roundKey = [roundQueryOptions(guildId, beeId, month).queryKey];
+  const sizeTarget: SizeTarget | null = round
+    ? {
+        unfinished: `${round.unfinished.widthText} x ${round.unfinished.heightText}`,
+        finished: `${round.finished.widthText} x ${round.finished.heightText}`,
+        untrimmed: round.trimMode === 'untrimmed',
+      }
+    : null;
   const myBlock = page.isMaker
     ? page.myMembershipId !== undefined
       ? page.blocks.find((b) => b.membershipId === page.myMembershipId)
@@ -174,6 +184,20 @@ export default function RoundRoute() {
               deliveryMethod={round?.deliveryMethod ?? bee.data.handover}
               onSave={(input) => updateBlock.mutateAsync({ membershipId: myBlock.membershipId, input })}
             />
+            {sent && (
+              <div className="mt-4 pt-3 border-top">
+                <SizeCheckPanel
+                  guildId={guildId}
+                  beeId={beeId}
+                  month={month}
+                  membershipId={myBlock.membershipId}
+                  latest={myBlock.sizeCheck}
+                  target={sizeTarget}
+                  timeZone={timeZone}
+                  alsoInvalidate={roundKey}
+                />
+              </div>
+            )}
           </Card.Body>
         </Card>
       )}
@@ -247,6 +271,20 @@ export default function RoundRoute() {
                 canSetOnBehalf={isOrganiser}
                 onUpdate={(membershipId, input) => updateBlock.mutateAsync({ membershipId, input })}
                 onNudge={() => nudges.mutateAsync()}
+                renderExtra={(block) => (
+                  <BlockSizeCheck
+                    guildId={guildId}
+                    beeId={beeId}
+                    month={month}
+                    membershipId={block.membershipId}
+                    makerName={block.name}
+                    latest={block.sizeCheck}
+                    target={sizeTarget}
+                    timeZone={timeZone}
+                    alsoInvalidate={roundKey}
+                    canCheckOnBehalf={isOrganiser && block.membershipId !== (page.myMembershipId ?? myBlock?.membershipId)}
+                  />
+                )}
               />
             ) : (
               <p>

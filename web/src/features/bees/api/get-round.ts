@@ -1,4 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { SizeCheck } from '@/features/size-check/api/get-size-checks';
 import { api } from '@/lib/api-client';
 import { beePath, beeQueryOptions, type RoundStatus } from './get-bee';
 import type { PersonRef } from './get-bees';
@@ -52,6 +53,8 @@ export type Block = {
   late: boolean;
   updatedAt: string | null;
   updatedOnBehalf: boolean;
+  /** The latest size check of the block, or null; absent from older api builds. */
+  sizeCheck?: SizeCheck | null;
 };
 
 export type RoundPage = {

@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import Badge from 'react-bootstrap/Badge';
 import Button from 'react-bootstrap/Button';
 import Card from 'react-bootstrap/Card';
@@ -15,6 +15,8 @@ type MakersGridProps = {
   canSetOnBehalf: boolean;
   onUpdate: (membershipId: number, input: UpdateBlockInput) => Promise<unknown>;
   onNudge?: () => Promise<{ nudged: number }>;
+  /** Extra content under a maker's status, such as her block's latest size check. */
+  renderExtra?: (block: Block) => ReactNode;
 };
 
 function OnBehalfForm({ block, onUpdate }: { block: Block; onUpdate: MakersGridProps['onUpdate'] }) {
@@ -68,7 +70,7 @@ function OnBehalfForm({ block, onUpdate }: { block: Block; onUpdate: MakersGridP
   );
 }
 
-export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, onNudge }: MakersGridProps) {
+export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, onNudge, renderExtra }: MakersGridProps) {
   const [error, setError] = useState<unknown>(null);
   const [message, setMessage] = useState('');
   const [nudging, setNudging] = useState(false);
@@ -148,6 +150,7 @@ export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, 
                     </p>
                   )}
                   {block.updatedOnBehalf && <p className="mb-1 text-body-secondary small">Set by the organiser on her behalf.</p>}
+                  {renderExtra?.(block)}
                   {canMarkReceived && block.status !== 'received' && (
                     <Button
                       variant="primary"
