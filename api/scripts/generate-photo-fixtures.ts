@@ -370,7 +370,8 @@ export async function renderScene(spec: SceneSpec, seed: string | number): Promi
     const [a, b] = applyHomography(H, [s, [s[0] + 1, s[1]]]);
     photoPxPerMm = Math.max(photoPxPerMm, Math.hypot(b[0] - a[0], b[1] - a[1]));
   }
-  const texRes = Math.min(12, Math.max(3, photoPxPerMm * 1.3));
+  // Capped in pixels too: a steep view sees a lot of table, and the WebAssembly heap has limits.
+  const texRes = Math.min(12, Math.max(3, photoPxPerMm * 1.3), Math.sqrt(36e6 / ((ex - ox) * (ey - oy))));
   const tw = Math.ceil((ex - ox) * texRes);
   const th = Math.ceil((ey - oy) * texRes);
   const tex: Canvas = { data: new Uint8ClampedArray(tw * th * 4), width: tw, height: th, x0: 0, y0: 0 };

@@ -1,5 +1,8 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
 import request from 'supertest';
-import { encodeJpeg, renderScene, type SceneSpec } from '../scripts/generate-photo-fixtures';
+import type { SceneSpec } from '../scripts/generate-photo-fixtures';
 import { monthsFrom } from '../src/bees/rotation';
 import { BeesScheduler } from '../src/rounds/bees-scheduler.service';
 import { Round } from '../src/rounds/round.entity';
@@ -34,9 +37,26 @@ function scene(widthIn: number, heightIn: number, over: Partial<SceneSpec['camer
   };
 }
 
+const GENERATOR = join(__dirname, '..', 'dist', 'scripts', 'generate-photo-fixtures.js');
+
+/**
+ * Renders a photograph with the compiled fixture generator in a child process: OpenCV's
+ * WebAssembly runs many times slower inside the test runner's sandbox than in plain Node.
+ */
 async function photo(spec: SceneSpec, seed: string): Promise<{ jpeg: Buffer; truth: { widthMm: number | null; heightMm: number | null } }> {
-  const rendered = await renderScene(spec, seed);
-  return { jpeg: await encodeJpeg(rendered, spec.camera.jpegQuality), truth: rendered.truth };
+  if (!existsSync(GENERATOR)) throw new Error('build the api first (npm run build -w api): the test renders photos with dist/');
+  const script = `const g = require(${JSON.stringify(GENERATOR)});
+    g.renderScene(JSON.parse(process.env.SPEC), process.env.SEED)
+      .then(async (r) => { const jpeg = await g.encodeJpeg(r, JSON.parse(process.env.SPEC).camera.jpegQuality);
+        process.stderr.write(JSON.stringify({ widthMm: r.truth.widthMm, heightMm: r.truth.heightMm }));
+        process.stdout.write(jpeg); })
+      .catch((e) => { console.error(e); process.exit(1); });`;
+  const run = spawnSync(process.execPath, ['-e', script], {
+    env: { ...process.env, NODE_OPTIONS: '', SPEC: JSON.stringify(spec), SEED: seed },
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  if (run.status !== 0) throw new Error(`rendering failed: ${run.stderr.toString()}`);
+  return { jpeg: run.stdout, truth: JSON.parse(run.stderr.toString()) };
 }
 
 describe('size checks: upload a photo of the block, get the measurement and verdict (real MariaDB)', () => {

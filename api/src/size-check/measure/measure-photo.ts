@@ -277,9 +277,10 @@ function globallyBlurry(cv: any, gray: any, own: Own): boolean {
 }
 
 interface Coarse {
+  /** The block's outline as the coarse view saw it, real mm: good to about a millimetre. */
+  outlineMm: Point[];
   /** Real-mm rectangle to look at closely. */
   region: [number, number, number, number];
-  seed: Point;
   centres: number[][];
   threshold: number;
 }
@@ -353,6 +354,26 @@ function kmeans(samples: number[][], k: number): number[][] {
     counts[best]++;
   }
   return centres.filter((_, c) => counts[c] >= samples.length * 0.03);
+}
+
+/**
+ * The table's colours: clusters of the band along the photo's edge that show up all the way round.
+ * A colour found along only a stretch of it is something lying across the edge (a block cut off by the
+ * frame, a bag, a hand) and must not be taken for the table.
+ */
+function tableColours(samples: number[][], where: Point[], centre: Point): number[][] {
+  const clusters = kmeans(samples, 5);
+  const sectors = 16;
+  const seenIn = clusters.map(() => new Set<number>());
+  const dist2 = (p: number[], c: number[]) => (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2;
+  samples.forEach((s, k) => {
+    let best = 0;
+    for (let c = 1; c < clusters.length; c++) if (dist2(s, clusters[c]) < dist2(s, clusters[best])) best = c;
+    const a = Math.atan2(where[k][1] - centre[1], where[k][0] - centre[0]);
+    seenIn[best].add(Math.floor(((a + Math.PI) / (2 * Math.PI)) * sectors) % sectors);
+  });
+  const table = clusters.filter((_, c) => seenIn[c].size >= sectors * 0.3);
+  return table.length ? table : clusters;
 }
 
 function photoPxPerMm(H: Homography, at: Point): number {
@@ -447,27 +468,33 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
   for (let i = 0; i < n; i++) if (foot[i] && !deep[i] && !cardPx[i]) candidates.push(i);
   const step = Math.max(1, Math.floor(candidates.length / 4000));
   const samples: number[][] = [];
+  const where: Point[] = [];
   for (let j = 0; j < candidates.length; j += step) {
     const i = candidates[j];
     samples.push([lab[3 * i] * L_WEIGHT, lab[3 * i + 1], lab[3 * i + 2]]);
+    where.push([i % view.width, Math.floor(i / view.width)]);
   }
-  const centres = kmeans(samples, 4);
+  const centres = tableColours(samples, where, [view.width / 2, view.height / 2]);
   const dist = labDistance(lab, centres);
 
   const hist = new Array<number>(256).fill(0);
   for (let i = 0; i < n; i++) if (foot[i] && !cardPx[i]) hist[Math.min(255, Math.round(dist[i] * 2))]++;
-  const { threshold: t2 } = otsuThreshold(hist);
-  const threshold = Math.max(t2 / 2, MIN_CONTRAST / 2);
+  const otsu = otsuThreshold(hist).threshold / 2;
+  // Otsu splits the most different colours from the rest, and a pieced block's palest patch can fall
+  // on the table's side of that split; so never demand more than twice what the table itself strays by.
+  const tableSpread = percentile(samples.map((s) => nearest(s, centres)), 0.95);
+  const threshold = Math.min(Math.max(otsu, MIN_CONTRAST), Math.max(2 * tableSpread, MIN_CONTRAST));
 
   const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
   const md = mask.data as Uint8Array;
   for (let i = 0; i < n; i++) md[i] = foot[i] && !cardPx[i] && dist[i] > threshold ? 255 : 0;
   cleanMask(cv, mask, Math.max(1, Math.round(2 * scale)), Math.max(1, Math.round(4 * scale)), own);
+  if (process.env.SV_DEBUG) (globalThis as any).__dbg = { mask: bytes(mask), view: bytes(view.view), w: view.width, h: view.height, foot, dist };
 
   const blob = largestComponent(cv, mask, own, (MIN_BLOCK_MM * scale * 0.5) ** 2);
   if (!blob) {
     // Either nothing stands out, or what does is too faint to trust.
-    return { reason: t2 / 2 < MIN_CONTRAST ? 'low_contrast' : 'block_not_found' };
+    return { reason: otsu < MIN_CONTRAST ? 'low_contrast' : 'block_not_found' };
   }
   // A block as alike to the table as the table is to itself: its inside must be clearly further off.
   let inside = 0;
@@ -487,10 +514,14 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
 
   const [bx, by, bw, bh] = blob.box;
   if (Math.max(bw, bh) / scale < MIN_BLOCK_MM) return { reason: 'too_small' };
+  const outline = outerContour(cv, blob, view.width, view.height, Math.max(2, Math.round(7 * scale)), own).map(
+    ([x, y]) => [region[0] + (x + 0.5) / scale, region[1] + (y + 0.5) / scale] as Point,
+  );
+  if (outline.length < 40) return { reason: 'block_not_found' };
   const margin = 15;
   return {
+    outlineMm: outline,
     region: [region[0] + bx / scale - margin, region[1] + by / scale - margin, region[0] + (bx + bw) / scale + margin, region[1] + (by + bh) / scale + margin],
-    seed: [region[0] + blob.centroid[0] / scale, region[1] + blob.centroid[1] / scale],
     centres,
     threshold,
   };
@@ -541,54 +572,59 @@ function largestComponent(cv: any, mask: any, own: Own, minArea: number, near?: 
   };
 }
 
+function outerContour(cv: any, blob: { label: number; labels: Int32Array }, width: number, height: number, openPx: number, own: Own): Point[] {
+  const only = own(new cv.Mat(height, width, cv.CV_8UC1, new cv.Scalar(0)));
+  const od = only.data as Uint8Array;
+  for (let i = 0; i < width * height; i++) od[i] = blob.labels[i] === blob.label ? 255 : 0;
+  // Spots of a patterned table touching the block and the first stretch of a thread would pull the
+  // enclosing rectangle off the block's sides; a round opening wider than they are takes them off.
+  const k = own(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(2 * openPx + 1, 2 * openPx + 1)));
+  cv.morphologyEx(only, only, cv.MORPH_OPEN, k);
+  const contours = own(new cv.MatVector());
+  const hierarchy = own(new cv.Mat());
+  cv.findContours(only, contours, hierarchy, cv.RETR_EXTERNAL, cv.CHAIN_APPROX_NONE);
+  let best: Point[] = [];
+  for (let i = 0; i < contours.size(); i++) {
+    const c = own(contours.get(i));
+    if (c.rows <= best.length) continue;
+    const d = c.data32S as Int32Array;
+    best = [];
+    for (let k = 0; k < c.rows; k++) best.push([d[2 * k], d[2 * k + 1]]);
+  }
+  return best;
+}
+
 function fitBlockEdges(cv: any, rgb: any, H: Homography, coarse: Coarse, own: Own): { cornersMm: Point[] } | { reason: RefusalReason } {
   const f = RECTIFIED_PX_PER_MM;
   const view = rectify(cv, rgb, H, coarse.region, f, own);
   const lab = toLab(cv, view.view, 0.6, own);
   const dist = labDistance(lab, coarse.centres);
-  const n = view.width * view.height;
   const foot = bytes(view.footprint);
-  const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
-  const md = mask.data as Uint8Array;
-  for (let i = 0; i < n; i++) md[i] = foot[i] && dist[i] > coarse.threshold ? 255 : 0;
-  cleanMask(cv, mask, Math.round(1.5 * f), Math.round(3 * f), own);
-  const seed: Point = [(coarse.seed[0] - view.x0) * f, (coarse.seed[1] - view.y0) * f];
-  const blob = largestComponent(cv, mask, own, (MIN_BLOCK_MM * f * 0.5) ** 2, seed);
-  if (!blob) return { reason: 'block_not_found' };
-  const only = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
-  const od = only.data as Uint8Array;
-  for (let i = 0; i < n; i++) od[i] = blob.labels[i] === blob.label ? 255 : 0;
-  const contours = own(new cv.MatVector());
-  const hierarchy = own(new cv.Mat());
-  cv.findContours(only, contours, hierarchy, cv.RETR_EXTERNAL, cv.CHAIN_APPROX_NONE);
-  let contour: any = null;
-  let bestLen = 0;
-  for (let i = 0; i < contours.size(); i++) {
-    const c = own(contours.get(i));
-    if (c.rows > bestLen) {
-      bestLen = c.rows;
-      contour = c;
-    }
-  }
-  if (!contour) return { reason: 'block_not_found' };
+  // Off the photo there is nothing to see: make it look like table so no edge is found there.
+  for (let i = 0; i < dist.length; i++) if (!foot[i]) dist[i] = 0;
+  const points: Point[] = coarse.outlineMm.map(([x, y]) => [(x - view.x0) * f - 0.5, (y - view.y0) * f - 0.5]);
+  const contour = own(cv.matFromArray(points.length, 1, cv.CV_32FC2, points.flat()));
   const rect = cv.minAreaRect(contour);
-  const cd = contour.data32S as Int32Array;
-  const points: Point[] = [];
-  for (let i = 0; i < contour.rows; i++) points.push([cd[2 * i], cd[2 * i + 1]]);
   const sides = classifyBySide(
     points,
     { center: [rect.center.x, rect.center.y], width: rect.size.width, height: rect.size.height, angleDeg: rect.angle },
+    // Wide enough for a block 1/4 inch out of square, whose sides stray from the enclosing rectangle.
     { cornerFraction: 0.1, maxOffset: 8 * f },
   );
   const centre: Point = [rect.center.x, rect.center.y];
   const lines: Line[] = [];
   for (let s = 0; s < 4; s++) {
     const pts = points.filter((_, i) => sides[i] === s);
-    if (pts.length < 20) return { reason: 'block_not_found' };
-    // Contour points are the block's outermost pixel centres; the boundary lies half a pixel further out.
-    const rough = fitLine(cv, pts, own);
-    const refined = refineEdge(rough, centre, pts, dist, view.width, view.height, f);
-    lines.push(refined.length >= 20 ? robustLine(cv, refined, own) : shiftOutward(rough, centre, 0.5));
+    if (pts.length < 10) return { reason: 'block_not_found' };
+    let line = fitLine(cv, pts, own);
+    // Twice: the second pass searches across a line already within a fraction of a millimetre.
+    for (let pass = 0; pass < 2; pass++) {
+      const refined = refineEdge(line, centre, pts, dist, view.width, view.height, f);
+      if (process.env.SV_DEBUG) console.log('side', s, 'pass', pass, 'contour', pts.length, 'refined', refined.length);
+      if (refined.length < 20) return { reason: 'block_not_found' };
+      line = robustLine(cv, refined, own);
+    }
+    lines.push(line);
   }
   const corners: Point[] = [];
   for (let s = 0; s < 4; s++) {
@@ -632,11 +668,6 @@ function outwardNormal(line: Line, centre: Point): Point {
     ny = -ny;
   }
   return [nx, ny];
-}
-
-function shiftOutward(line: Line, centre: Point, px: number): Line {
-  const [nx, ny] = outwardNormal(line, centre);
-  return { direction: line.direction, point: [line.point[0] + nx * px, line.point[1] + ny * px] };
 }
 
 /**
@@ -696,6 +727,16 @@ function refineEdge(line: Line, centre: Point, sidePoints: Point[], dist: Float3
     out.push([bx + nx * bestK, by + ny * bestK]);
   }
   return out;
+}
+
+function nearest(p: number[], centres: number[][]): number {
+  return Math.sqrt(Math.min(...centres.map((c) => (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2)));
+}
+
+function percentile(values: number[], q: number): number {
+  if (!values.length) return 0;
+  const s = [...values].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor(q * s.length))];
 }
 
 function bytes(mat: any): Uint8Array {
