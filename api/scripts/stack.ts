@@ -249,7 +249,8 @@ async function test() {
 
 /**
  * `npm run bench`: its own MariaDB with the demo, the api on :3200, then autocannon on /api/health
- * vs the signed-in dashboard, then a round fanned out to 5,000 makers.
+ * vs the signed-in dashboard, a round fanned out to 5,000 makers, and the size check on 50
+ * generated photographs.
  */
 async function bench() {
   const dir = join(DATA, 'bench');
@@ -269,6 +270,10 @@ async function bench() {
   await startApi(env);
   await mustRun('http bench', 'npx', ['tsx', join(API, 'scripts', 'bench.ts')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
   await mustRun('fan-out bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-fanout.js')], env);
+  // The size check's accuracy and speed on photographs with known truth (a fixed seed).
+  const photos = join(dir, 'photos');
+  await mustRun('photo fixtures', process.execPath, [join(API, 'dist', 'scripts', 'generate-photo-fixtures.js'), photos], process.env);
+  await mustRun('size-check accuracy', process.execPath, [join(API, 'dist', 'src', 'size-check', 'measure', 'accuracy-bench.js'), photos], process.env);
 }
 
 const commands: Record<string, () => Promise<void>> = { start, dev, test, bench };
