@@ -25,6 +25,9 @@ import {
 } from '../src/size-check/measure/geometry';
 import { loadOpenCv, type OpenCv } from '../src/size-check/measure/opencv';
 
+// Under jest's sandbox every `Math.` lookup costs ~150 ns, which dominates per-pixel loops: bind them once.
+const { PI, abs, atan2, ceil, cos, exp, floor, hypot, log, max, min, pow, round, sin, sqrt } = Math;
+
 const INCH = 25.4;
 
 export type RefuseReason =
@@ -104,7 +107,7 @@ const BACKGROUND_BASE: Record<Background, RGB[]> = {
 };
 
 function rgbDistance(a: RGB, b: RGB): number {
-  return Math.hypot(a[0] - b[0], a[1] - b[1], a[2] - b[2]);
+  return hypot(a[0] - b[0], a[1] - b[1], a[2] - b[2]);
 }
 
 /** A canvas of RGBA bytes whose pixel (i, j) covers [x0 + i, x0 + i + 1) × [y0 + j, …) in texture px. */
@@ -135,21 +138,21 @@ function coverage(polys: Point[][]): { cov: Float32Array; x0: number; y0: number
       if (y > maxY) maxY = y;
     }
   if (!Number.isFinite(minX)) return null;
-  const x0 = Math.floor(minX);
-  const y0 = Math.floor(minY);
-  const w = Math.ceil(maxX) - x0 + 1;
-  const h = Math.ceil(maxY) - y0 + 1;
+  const x0 = floor(minX);
+  const y0 = floor(minY);
+  const w = ceil(maxX) - x0 + 1;
+  const h = ceil(maxY) - y0 + 1;
   const cov = new Float32Array(w * h);
   const xs: number[] = [];
   for (const poly of polys) {
     let pMinY = Infinity;
     let pMaxY = -Infinity;
     for (const [, y] of poly) {
-      pMinY = Math.min(pMinY, y);
-      pMaxY = Math.max(pMaxY, y);
+      pMinY = min(pMinY, y);
+      pMaxY = max(pMaxY, y);
     }
-    const rowStart = Math.max(0, Math.floor(pMinY) - y0);
-    const rowEnd = Math.min(h - 1, Math.ceil(pMaxY) - y0);
+    const rowStart = max(0, floor(pMinY) - y0);
+    const rowEnd = min(h - 1, ceil(pMaxY) - y0);
     for (let row = rowStart; row <= rowEnd; row++) {
       for (let k = 0; k < SUBROWS; k++) {
         const ys = y0 + row + (k + 0.5) / SUBROWS;
@@ -164,8 +167,8 @@ function coverage(polys: Point[][]): { cov: Float32Array; x0: number; y0: number
         for (let s = 0; s + 1 < xs.length; s += 2) {
           const a = xs[s] - x0;
           const b = xs[s + 1] - x0;
-          const ia = Math.floor(a);
-          const ib = Math.floor(b);
+          const ia = floor(a);
+          const ib = floor(b);
           const base = row * w;
           const wgt = 1 / SUBROWS;
           if (ia === ib) {
@@ -189,7 +192,7 @@ function fillPolygons(canvas: Canvas, polys: Point[][], colour: RGB, alpha = 1) 
     const cy = c.y0 + j - canvas.y0;
     if (cy < 0 || cy >= canvas.height) continue;
     for (let i = 0; i < c.w; i++) {
-      const a = Math.min(1, c.cov[j * c.w + i]) * alpha;
+      const a = min(1, c.cov[j * c.w + i]) * alpha;
       if (a <= 0) continue;
       const cx = c.x0 + i - canvas.x0;
       if (cx < 0 || cx >= canvas.width) continue;
@@ -202,7 +205,7 @@ function fillPolygons(canvas: Canvas, polys: Point[][], colour: RGB, alpha = 1) 
 }
 
 function circle(cx: number, cy: number, r: number, n = 14): Point[] {
-  return Array.from({ length: n }, (_, k) => [cx + r * Math.cos((2 * Math.PI * k) / n), cy + r * Math.sin((2 * Math.PI * k) / n)] as Point);
+  return Array.from({ length: n }, (_, k) => [cx + r * cos((2 * PI * k) / n), cy + r * sin((2 * PI * k) / n)] as Point);
 }
 
 /** A thread or bar of given width along a polyline, as one quad per segment. */
@@ -211,7 +214,7 @@ function strokePolys(path: Point[], width: number): Point[][] {
   for (let i = 0; i + 1 < path.length; i++) {
     const [ax, ay] = path[i];
     const [bx, by] = path[i + 1];
-    const len = Math.hypot(bx - ax, by - ay) || 1;
+    const len = hypot(bx - ax, by - ay) || 1;
     const nx = (-(by - ay) / len) * (width / 2);
     const ny = ((bx - ax) / len) * (width / 2);
     out.push([[ax + nx, ay + ny], [bx + nx, by + ny], [bx - nx, by - ny], [ax - nx, ay - ny]]);
@@ -220,12 +223,12 @@ function strokePolys(path: Point[], width: number): Point[][] {
 }
 
 function rotate([x, y]: Point, deg: number): Point {
-  const a = (deg * Math.PI) / 180;
-  return [x * Math.cos(a) - y * Math.sin(a), x * Math.sin(a) + y * Math.cos(a)];
+  const a = (deg * PI) / 180;
+  return [x * cos(a) - y * sin(a), x * sin(a) + y * cos(a)];
 }
 
 function gaussian(rng: () => number): number {
-  return Math.sqrt(-2 * Math.log(rng() || 1e-12)) * Math.cos(2 * Math.PI * rng());
+  return sqrt(-2 * log(rng() || 1e-12)) * cos(2 * PI * rng());
 }
 
 /** Where things lie on the table, in plane mm. */
@@ -265,10 +268,10 @@ function layout(spec: SceneSpec, rng: () => number): Layout {
     const cw = CARD.widthMm * s;
     const ch = CARD.heightMm * s;
     const local = [[0, 0], [cw, 0], [cw, ch], [0, ch]].map((p) => rotate([p[0] - cw / 2, p[1] - ch / 2], spec.card.rotationDeg));
-    const bx = blockCorners ? Math.max(...blockCorners.map((p) => Math.abs(p[0]))) : 0;
-    const by = blockCorners ? Math.max(...blockCorners.map((p) => Math.abs(p[1]))) : 0;
-    const ex = Math.max(...local.map((p) => Math.abs(p[0])));
-    const ey = Math.max(...local.map((p) => Math.abs(p[1])));
+    const bx = blockCorners ? max(...blockCorners.map((p) => abs(p[0]))) : 0;
+    const by = blockCorners ? max(...blockCorners.map((p) => abs(p[1]))) : 0;
+    const ex = max(...local.map((p) => abs(p[0])));
+    const ey = max(...local.map((p) => abs(p[1])));
     const gap = 12 + rng() * 30;
     const slide = (rng() - 0.5) * 0.6;
     const centre: Point =
@@ -285,10 +288,10 @@ function layout(spec: SceneSpec, rng: () => number): Layout {
   if (!pts.length) pts.push([-150, -150], [150, 150]);
   const margin = 25;
   const bbox: [number, number, number, number] = [
-    Math.min(...pts.map((p) => p[0])) - margin,
-    Math.min(...pts.map((p) => p[1])) - margin,
-    Math.max(...pts.map((p) => p[0])) + margin,
-    Math.max(...pts.map((p) => p[1])) + margin,
+    min(...pts.map((p) => p[0])) - margin,
+    min(...pts.map((p) => p[1])) - margin,
+    max(...pts.map((p) => p[0])) + margin,
+    max(...pts.map((p) => p[1])) + margin,
   ];
   return { blockCorners, blockToPlane, blockLocal, cardToPlane, cardCorners, bbox };
 }
@@ -309,29 +312,29 @@ export async function renderScene(spec: SceneSpec, seed: string | number): Promi
 
   // Frame.
   const aspect = 4 / 3;
-  let width = Math.round(Math.sqrt(cam.megapixels * 1e6 * aspect));
-  let height = Math.round(width / aspect);
+  let width = round(sqrt(cam.megapixels * 1e6 * aspect));
+  let height = round(width / aspect);
   if (cam.portrait) [width, height] = [height, width];
   const [bx0, by0, bx1, by1] = lay.bbox;
   const target: Point = [(bx0 + bx1) / 2, (by0 + by1) / 2];
-  const sceneDiag = Math.hypot(bx1 - bx0, by1 - by0);
+  const sceneDiag = hypot(bx1 - bx0, by1 - by0);
   const base = { rollDeg: cam.rollDeg, tiltDeg: cam.tiltDeg, tiltAxisDeg: cam.tiltAxisDeg, target, distanceMm: sceneDiag * 1.1, principalPoint: [0, 0] as Point };
   const unit = applyHomography(cameraHomography({ ...base, focalPx: 1 }), [[bx0, by0], [bx1, by0], [bx1, by1], [bx0, by1]]);
-  const ux = Math.max(...unit.map((p) => p[0])) - Math.min(...unit.map((p) => p[0]));
-  const uy = Math.max(...unit.map((p) => p[1])) - Math.min(...unit.map((p) => p[1]));
-  const focalPx = Math.min((width * cam.fill) / ux, (height * cam.fill) / uy);
+  const ux = max(...unit.map((p) => p[0])) - min(...unit.map((p) => p[0]));
+  const uy = max(...unit.map((p) => p[1])) - min(...unit.map((p) => p[1]));
+  const focalPx = min((width * cam.fill) / ux, (height * cam.fill) / uy);
   let H = cameraHomography({ ...base, focalPx, principalPoint: [width / 2, height / 2] });
   // Centre the scene's projection, as a photographer would (a shifted principal point, like a crop).
   const proj = applyHomography(H, [[bx0, by0], [bx1, by0], [bx1, by1], [bx0, by1]]);
-  let shiftX = width / 2 - (Math.min(...proj.map((p) => p[0])) + Math.max(...proj.map((p) => p[0]))) / 2;
-  let shiftY = height / 2 - (Math.min(...proj.map((p) => p[1])) + Math.max(...proj.map((p) => p[1]))) / 2;
+  let shiftX = width / 2 - (min(...proj.map((p) => p[0])) + max(...proj.map((p) => p[0]))) / 2;
+  let shiftY = height / 2 - (min(...proj.map((p) => p[1])) + max(...proj.map((p) => p[1]))) / 2;
   if (spec.card.framing === 'half' && lay.cardCorners && lay.cardToPlane) {
     // Put the card's centre on the frame's nearest edge: half of it (two markers) falls outside.
     const [c] = applyHomography(H, [lay.cardToPlane([CARD.widthMm / 2, CARD.heightMm / 2])]);
     const cx = c[0] + shiftX;
     const cy = c[1] + shiftY;
     const edges = [cx, width - cx, cy, height - cy];
-    const nearest = edges.indexOf(Math.min(...edges));
+    const nearest = edges.indexOf(min(...edges));
     if (nearest === 0) shiftX -= cx;
     else if (nearest === 1) shiftX += width - cx;
     else if (nearest === 2) shiftY -= cy;
@@ -341,10 +344,10 @@ export async function renderScene(spec: SceneSpec, seed: string | number): Promi
     // Slide the frame so the block's far side is cut off by about 4% of the frame.
     const bc = applyHomography(H, lay.blockCorners).map(([x, y]) => [x + shiftX, y + shiftY] as Point);
     const cardSide = spec.card.side;
-    if (cardSide === 'right') shiftX -= Math.min(...bc.map((p) => p[0])) + 0.04 * width;
-    else if (cardSide === 'left') shiftX += width * 1.04 - Math.max(...bc.map((p) => p[0]));
-    else if (cardSide === 'below') shiftY -= Math.min(...bc.map((p) => p[1])) + 0.04 * height;
-    else shiftY += height * 1.04 - Math.max(...bc.map((p) => p[1]));
+    if (cardSide === 'right') shiftX -= min(...bc.map((p) => p[0])) + 0.04 * width;
+    else if (cardSide === 'left') shiftX += width * 1.04 - max(...bc.map((p) => p[0]));
+    else if (cardSide === 'below') shiftY -= min(...bc.map((p) => p[1])) + 0.04 * height;
+    else shiftY += height * 1.04 - max(...bc.map((p) => p[1]));
   }
   H = [
     H[0] + shiftX * H[6], H[1] + shiftX * H[7], H[2] + shiftX * H[8],
@@ -354,26 +357,26 @@ export async function renderScene(spec: SceneSpec, seed: string | number): Promi
   const Hinv = invertHomography(H);
   const cx = width / 2;
   const cy = height / 2;
-  const rNorm = Math.hypot(cx, cy);
+  const rNorm = hypot(cx, cy);
 
   // The plane region the photo sees, and how finely to draw it: a little finer than the photo samples it.
   const border: Point[] = [];
   for (let k = 0; k <= 20; k++) border.push([(k / 20) * width, 0], [(k / 20) * width, height], [0, (k / 20) * height], [width, (k / 20) * height]);
   const seen = applyHomography(Hinv, border);
-  const ox = Math.min(...seen.map((p) => p[0])) - 10;
-  const oy = Math.min(...seen.map((p) => p[1])) - 10;
-  const ex = Math.max(...seen.map((p) => p[0])) + 10;
-  const ey = Math.max(...seen.map((p) => p[1])) + 10;
+  const ox = min(...seen.map((p) => p[0])) - 10;
+  const oy = min(...seen.map((p) => p[1])) - 10;
+  const ex = max(...seen.map((p) => p[0])) + 10;
+  const ey = max(...seen.map((p) => p[1])) + 10;
   const probe = applyHomography(H, [[target[0], target[1]], [target[0] + 1, target[1]], ...seen.slice(0, 4)]);
-  let photoPxPerMm = Math.hypot(probe[1][0] - probe[0][0], probe[1][1] - probe[0][1]);
+  let photoPxPerMm = hypot(probe[1][0] - probe[0][0], probe[1][1] - probe[0][1]);
   for (const s of seen) {
     const [a, b] = applyHomography(H, [s, [s[0] + 1, s[1]]]);
-    photoPxPerMm = Math.max(photoPxPerMm, Math.hypot(b[0] - a[0], b[1] - a[1]));
+    photoPxPerMm = max(photoPxPerMm, hypot(b[0] - a[0], b[1] - a[1]));
   }
   // Capped in pixels too: a steep view sees a lot of table, and the WebAssembly heap has limits.
-  const texRes = Math.min(12, Math.max(3, photoPxPerMm * 1.3), Math.sqrt(36e6 / ((ex - ox) * (ey - oy))));
-  const tw = Math.ceil((ex - ox) * texRes);
-  const th = Math.ceil((ey - oy) * texRes);
+  const texRes = min(12, max(3, photoPxPerMm * 1.3), sqrt(36e6 / ((ex - ox) * (ey - oy))));
+  const tw = ceil((ex - ox) * texRes);
+  const th = ceil((ey - oy) * texRes);
   const tex: Canvas = { data: new Uint8ClampedArray(tw * th * 4), width: tw, height: th, x0: 0, y0: 0 };
   const toTex = (p: Point): Point => [(p[0] - ox) * texRes, (p[1] - oy) * texRes];
 
@@ -390,7 +393,7 @@ export async function renderScene(spec: SceneSpec, seed: string | number): Promi
   try {
     texMat.data.set(tex.data);
     // Band-limit the drawing to the photo's sampling so fine grid lines and prints do not alias.
-    const pre = (0.5 * texRes) / Math.max(1, photoPxPerMm * 0.8);
+    const pre = (0.5 * texRes) / max(1, photoPxPerMm * 0.8);
     if (pre > 0.6) cv.GaussianBlur(texMat, texMat, new cv.Size(0, 0), pre, pre, cv.BORDER_REPLICATE);
     const mx = new Float32Array(width * height);
     const my = new Float32Array(width * height);
@@ -443,7 +446,7 @@ function makeTruth(spec: SceneSpec, lay: Layout, H: Homography, dist: (p: Point)
     widthMm: size?.width ?? null,
     heightMm: size?.height ?? null,
     diagonalsMm: diag,
-    diagonalDifferenceMm: diag ? Math.abs(diag[0] - diag[1]) : null,
+    diagonalDifferenceMm: diag ? abs(diag[0] - diag[1]) : null,
     cornersPx: corners ? applyHomography(H, corners).map(dist) : null,
     homography: H,
     spec,
@@ -452,9 +455,9 @@ function makeTruth(spec: SceneSpec, lay: Layout, H: Homography, dist: (p: Point)
 
 function drawBackground(cv: OpenCv, tex: Canvas, kind: Background, rng: () => number, ox: number, oy: number, res: number) {
   const { data, width, height } = tex;
-  const angle = rng() * Math.PI;
-  const ca = Math.cos(angle);
-  const sa = Math.sin(angle);
+  const angle = rng() * PI;
+  const ca = cos(angle);
+  const sa = sin(angle);
   const phase = rng() * 1000;
   const [c0, c1] = BACKGROUND_BASE[kind];
   const halfLine = 0.2;
@@ -468,18 +471,18 @@ function drawBackground(cv: OpenCv, tex: Canvas, kind: Background, rng: () => nu
       if (kind === 'mat') {
         const u = X * ca + Y * sa + phase;
         const v = -X * sa + Y * ca + phase;
-        const du = Math.abs(u - Math.round(u / INCH) * INCH);
-        const dv = Math.abs(v - Math.round(v / INCH) * INCH);
-        const line = Math.max(0, Math.min(1, 0.5 + (halfLine - Math.min(du, dv)) * res));
+        const du = abs(u - round(u / INCH) * INCH);
+        const dv = abs(v - round(v / INCH) * INCH);
+        const line = max(0, min(1, 0.5 + (halfLine - min(du, dv)) * res));
         r = c0[0] * (1 - line) + c1[0] * line;
         g = c0[1] * (1 - line) + c1[1] * line;
         b = c0[2] * (1 - line) + c1[2] * line;
       } else if (kind === 'wood') {
         const u = X * ca + Y * sa;
         const v = -X * sa + Y * ca;
-        const t = v + 4 * Math.sin(u / 53 + phase) + 1.5 * Math.sin(u / 11 + 2 * phase);
-        const s = 0.5 + 0.5 * Math.sin((2 * Math.PI * t) / 9);
-        const m = Math.pow(s, 3);
+        const t = v + 4 * sin(u / 53 + phase) + 1.5 * sin(u / 11 + 2 * phase);
+        const s = 0.5 + 0.5 * sin((2 * PI * t) / 9);
+        const m = pow(s, 3);
         r = c0[0] * (1 - m) + c1[0] * m;
         g = c0[1] * (1 - m) + c1[1] * m;
         b = c0[2] * (1 - m) + c1[2] * m;
@@ -498,7 +501,7 @@ function drawBackground(cv: OpenCv, tex: Canvas, kind: Background, rng: () => nu
   if (kind === 'busy') {
     const colours = BACKGROUND_BASE.busy.slice(1);
     const area = (width / res) * (height / res);
-    const n = Math.round(area / 140);
+    const n = round(area / 140);
     const groups: Point[][][] = colours.map(() => []);
     for (let k = 0; k < n; k++) {
       const x = rng() * width;
@@ -516,7 +519,7 @@ function pickFabrics(rng: () => number, background: Background, n: number): RGB[
   const ok = FABRICS.filter((f) => bg.every((b) => rgbDistance(f, b) > 90));
   const out: RGB[] = [];
   const pool = [...ok];
-  while (out.length < n && pool.length) out.push(pool.splice(Math.floor(rng() * pool.length), 1)[0]);
+  while (out.length < n && pool.length) out.push(pool.splice(floor(rng() * pool.length), 1)[0]);
   return out;
 }
 
@@ -532,10 +535,10 @@ function drawBlock(tex: Canvas, spec: SceneSpec, lay: Layout, rng: () => number,
   // The fabric itself, drawn on a layer over the block's bounding box, then cut out by the ragged outline.
   const corners = [[0, 0], [w, 0], [w, h], [0, h]].map((p) => map(p as Point));
   const pad = 60 * res;
-  const lx = Math.floor(Math.min(...corners.map((p) => p[0])) - pad);
-  const ly = Math.floor(Math.min(...corners.map((p) => p[1])) - pad);
-  const lw = Math.ceil(Math.max(...corners.map((p) => p[0])) + pad) - lx;
-  const lh = Math.ceil(Math.max(...corners.map((p) => p[1])) + pad) - ly;
+  const lx = floor(min(...corners.map((p) => p[0])) - pad);
+  const ly = floor(min(...corners.map((p) => p[1])) - pad);
+  const lw = ceil(max(...corners.map((p) => p[0])) + pad) - lx;
+  const lh = ceil(max(...corners.map((p) => p[1])) + pad) - ly;
   const layer: Canvas = { data: new Uint8ClampedArray(lw * lh * 4), width: lw, height: lh, x0: lx, y0: ly };
   const base = colours[0];
   for (let i = 0; i < lw * lh; i++) {
@@ -546,20 +549,20 @@ function drawBlock(tex: Canvas, spec: SceneSpec, lay: Layout, rng: () => number,
   }
   if (block.print === 'pieced') {
     // A grid of squares and half-square triangles, the way simple blocks are pieced.
-    const n = 2 + Math.floor(rng() * 3);
+    const n = 2 + floor(rng() * 3);
     for (let r = 0; r < n; r++)
       for (let c = 0; c < n; c++) {
         const [x0, y0, x1, y1] = [(c * w) / n, (r * h) / n, ((c + 1) * w) / n, ((r + 1) * h) / n];
-        const a = colours[Math.floor(rng() * colours.length)];
+        const a = colours[floor(rng() * colours.length)];
         fillPolygons(layer, [[[x0, y0], [x1, y0], [x1, y1], [x0, y1]].map((p) => map(p as Point))], a);
         if (rng() < 0.5) {
-          const b = colours[Math.floor(rng() * colours.length)];
+          const b = colours[floor(rng() * colours.length)];
           fillPolygons(layer, [[[x0, y0], [x1, y0], [x1, y1]].map((p) => map(p as Point))], b);
         }
       }
   } else if (block.print === 'busy') {
     const groups: Point[][][] = colours.map(() => []);
-    const n = Math.round((w * h) / 60);
+    const n = round((w * h) / 60);
     for (let k = 0; k < n; k++) {
       const p = map([rng() * w, rng() * h]);
       const r = (1 + rng() * 3) * res;
@@ -572,8 +575,8 @@ function drawBlock(tex: Canvas, spec: SceneSpec, lay: Layout, rng: () => number,
   const outline: Point[] = [];
   const sides: [Point, Point][] = [[[0, 0], [w, 0]], [[w, 0], [w, h]], [[w, h], [0, h]], [[0, h], [0, 0]]];
   for (const [a, b] of sides) {
-    const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
-    const steps = Math.ceil(len / 1.5);
+    const len = hypot(b[0] - a[0], b[1] - a[1]);
+    const steps = ceil(len / 1.5);
     const nx = (b[1] - a[1]) / len;
     const ny = -(b[0] - a[0]) / len;
     let jitter = 0;
@@ -588,7 +591,7 @@ function drawBlock(tex: Canvas, spec: SceneSpec, lay: Layout, rng: () => number,
   const cut = coverage([outline.map(map)])!;
   for (let j = 0; j < cut.h; j++)
     for (let i = 0; i < cut.w; i++) {
-      const a = Math.min(1, cut.cov[j * cut.w + i]);
+      const a = min(1, cut.cov[j * cut.w + i]);
       if (a <= 0) continue;
       const tx = cut.x0 + i;
       const ty = cut.y0 + j;
@@ -600,22 +603,22 @@ function drawBlock(tex: Canvas, spec: SceneSpec, lay: Layout, rng: () => number,
 
   // Hanging threads: thin, wandering, from the edge outwards.
   for (let k = 0; k < block.threads; k++) {
-    const side = sides[Math.floor(rng() * 4)];
+    const side = sides[floor(rng() * 4)];
     const t = 0.1 + rng() * 0.8;
     const [a, b] = side;
-    const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+    const len = hypot(b[0] - a[0], b[1] - a[1]);
     const nx = (b[1] - a[1]) / len;
     const ny = -(b[0] - a[0]) / len;
     let p: Point = [a[0] + (b[0] - a[0]) * t - nx * 2, a[1] + (b[1] - a[1]) * t - ny * 2];
-    let dir = Math.atan2(ny, nx) + (rng() - 0.5);
+    let dir = atan2(ny, nx) + (rng() - 0.5);
     const path: Point[] = [p];
     const threadLen = 8 + rng() * 35;
     for (let d = 0; d < threadLen; d += 1.5) {
       dir += (rng() - 0.5) * 0.5;
-      p = [p[0] + Math.cos(dir) * 1.5, p[1] + Math.sin(dir) * 1.5];
+      p = [p[0] + cos(dir) * 1.5, p[1] + sin(dir) * 1.5];
       path.push(p);
     }
-    const colour = rng() < 0.5 ? colours[Math.floor(rng() * colours.length)] : ([235, 230, 215] as RGB);
+    const colour = rng() < 0.5 ? colours[floor(rng() * colours.length)] : ([235, 230, 215] as RGB);
     fillPolygons(tex, strokePolys(path.map(map), (0.25 + rng() * 0.15) * res), colour);
   }
   return colours;
@@ -655,14 +658,14 @@ function drawCard(cv: OpenCv, tex: Canvas, toPlane: (p: Point) => Point, toTex: 
 
 function light(rgba: Uint8ClampedArray, width: number, height: number, spec: SceneSpec, rng: () => number) {
   const cam = spec.camera;
-  const dir = rng() * 2 * Math.PI;
-  const gx = Math.cos(dir);
-  const gy = Math.sin(dir);
+  const dir = rng() * 2 * PI;
+  const gx = cos(dir);
+  const gy = sin(dir);
   const sx = rng() * width;
   const sy = rng() * height;
-  const sr = (0.25 + rng() * 0.3) * Math.max(width, height);
+  const sr = (0.25 + rng() * 0.3) * max(width, height);
   // A cheap, seeded normal generator: seedrandom per pixel would dominate the render time.
-  let state = Math.floor(rng() * 2 ** 31) | 1;
+  let state = floor(rng() * 2 ** 31) | 1;
   const uniform = () => {
     state ^= state << 13;
     state ^= state >>> 17;
@@ -676,16 +679,16 @@ function light(rgba: Uint8ClampedArray, width: number, height: number, spec: Sce
       spare = null;
       return s;
     }
-    const r = Math.sqrt(-2 * Math.log(uniform()));
-    const a = 2 * Math.PI * uniform();
-    spare = r * Math.sin(a);
-    return r * Math.cos(a);
+    const r = sqrt(-2 * log(uniform()));
+    const a = 2 * PI * uniform();
+    spare = r * sin(a);
+    return r * cos(a);
   };
   for (let y = 0; y < height; y++) {
     for (let x = 0; x < width; x++) {
-      const u = ((x - width / 2) * gx + (y - height / 2) * gy) / Math.max(width, height);
+      const u = ((x - width / 2) * gx + (y - height / 2) * gy) / max(width, height);
       const d2 = ((x - sx) ** 2 + (y - sy) ** 2) / (sr * sr);
-      const gain = cam.exposure * (1 + cam.light * u * 1.6) * (1 - cam.shadow * Math.exp(-d2));
+      const gain = cam.exposure * (1 + cam.light * u * 1.6) * (1 - cam.shadow * exp(-d2));
       const o = (y * width + x) * 4;
       rgba[o] = rgba[o] * gain + normal() * cam.noise;
       rgba[o + 1] = rgba[o + 1] * gain + normal() * cam.noise;
@@ -698,7 +701,7 @@ function light(rgba: Uint8ClampedArray, width: number, height: number, spec: Sce
 /** A varied set: sizes from TRADE.md §1.5 (6 1/2, 9 1/2, 12 1/2 unfinished, up to 16 1/2), then must-refuse scenes. */
 export function makeSceneSpecs(valid: number, refuse: number, seed: string, maxMegapixels = 12): SceneSpec[] {
   const rng = seedrandom(`${seed}:specs`);
-  const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rng() * xs.length)];
+  const pick = <T>(xs: readonly T[]): T => xs[floor(rng() * xs.length)];
   const between = (a: number, b: number) => a + rng() * (b - a);
   const sizes: [number, number][] = [[6.5, 6.5], [9.5, 9.5], [12.5, 12.5], [12.5, 12.5], [12.5, 6.5], [6.5, 12.5], [16.5, 16.5], [4.5, 4.5]];
   const out: SceneSpec[] = [];
@@ -708,7 +711,7 @@ export function makeSceneSpecs(valid: number, refuse: number, seed: string, maxM
     const print = background === 'busy' ? pick(['solid', 'pieced'] as const) : pick(['solid', 'pieced', 'busy'] as const);
     const spec: SceneSpec = {
       background,
-      block: { widthIn, heightIn, print, outOfSquareMm: rng() < 0.25 ? between(1.5, 5) : 0, rotationDeg: between(-12, 12), threads: Math.floor(between(0, 5)) },
+      block: { widthIn, heightIn, print, outOfSquareMm: rng() < 0.25 ? between(1.5, 5) : 0, rotationDeg: between(-12, 12), threads: floor(between(0, 5)) },
       card: { printScale: between(0.97, 1.03), rotationDeg: between(-15, 15), side: pick(['right', 'left', 'below', 'above'] as const), framing: 'full' },
       camera: {
         megapixels: between(3, maxMegapixels),
@@ -722,7 +725,7 @@ export function makeSceneSpecs(valid: number, refuse: number, seed: string, maxM
         light: between(0, 0.3),
         shadow: between(0, 0.25),
         exposure: between(0.85, 1.05),
-        jpegQuality: Math.round(between(70, 92)),
+        jpegQuality: round(between(70, 92)),
         fill: between(0.78, 0.92),
       },
       expect: 'measure',
@@ -760,7 +763,7 @@ export function makeSceneSpecs(valid: number, refuse: number, seed: string, maxM
 
 /** Blur for the must-refuse "very blurry" scenes, sized to the frame so it is blurry at any resolution. */
 export function veryBlurryPx(spec: SceneSpec): number {
-  return 0.006 * Math.sqrt(spec.camera.megapixels * 1e6 * (4 / 3));
+  return 0.006 * sqrt(spec.camera.megapixels * 1e6 * (4 / 3));
 }
 
 export async function renderForSet(spec: SceneSpec, seed: string): Promise<RenderedScene> {

@@ -26,6 +26,9 @@ import {
 } from './geometry';
 import { loadOpenCv } from './opencv';
 
+// Under jest's sandbox every `Math.` lookup costs ~150 ns, which dominates per-pixel loops: bind them once.
+const { PI, abs, atan2, ceil, floor, hypot, max, min, round, sqrt } = Math;
+
 export type RefusalReason =
   | 'card_not_found'
   | 'block_not_found'
@@ -84,6 +87,7 @@ const MIN_MARKER_SHARPNESS = 0.16;
 const MIN_CONTRAST = 9;
 const CARD_MARGIN_MM = 6;
 const EDGE_SEARCH_MM = 3;
+const OUTSIDE_SLACK = 6;
 
 const MESSAGES: Record<RefusalReason, string> = {
   card_not_found:
@@ -116,7 +120,7 @@ export async function measureBlockPhoto(image: RgbaImage, options: MeasureOption
   let lap = started;
   const tick = (name: string) => {
     const now = performance.now();
-    timingsMs[name] = Math.round((now - lap) * 10) / 10;
+    timingsMs[name] = round((now - lap) * 10) / 10;
     lap = now;
   };
   const owned: { delete(): void }[] = [];
@@ -144,8 +148,7 @@ export async function measureBlockPhoto(image: RgbaImage, options: MeasureOption
     tick('homography');
     if (!H) return refuse('card_not_found');
 
-    const sharp = markerSharpness(cv, gray, markers, H, printScale, own); if (process.env.SV_DEBUG) console.log("sharp", sharp);
-    if (sharp < MIN_MARKER_SHARPNESS) return refuse("too_blurry");
+    if (markerSharpness(cv, gray, markers, H, printScale, own) < MIN_MARKER_SHARPNESS) return refuse('too_blurry');
     tick('sharpness');
 
     const coarse = findBlockCoarsely(cv, rgb, H, printScale, own);
@@ -158,9 +161,9 @@ export async function measureBlockPhoto(image: RgbaImage, options: MeasureOption
 
     const cornersMm = orderCorners(fine.cornersMm);
     const { width, height } = quadSize(cornersMm);
-    if (Math.min(width, height) < MIN_BLOCK_MM) return refuse('too_small');
+    if (min(width, height) < MIN_BLOCK_MM) return refuse('too_small');
     const Hinv = invertHomography(H);
-    timingsMs.total = Math.round((performance.now() - started) * 10) / 10;
+    timingsMs.total = round((performance.now() - started) * 10) / 10;
     return {
       ok: true,
       widthMm: width,
@@ -207,7 +210,7 @@ function detectMarkers(cv: any, gray: any, own: Own): Marker[] {
     const d = c.data32F;
     const pts: Point[] = [0, 1, 2, 3].map((k) => [d[2 * k], d[2 * k + 1]]);
     c.delete();
-    const perimeter = pts.reduce((s, p, k) => s + Math.hypot(p[0] - pts[(k + 1) % 4][0], p[1] - pts[(k + 1) % 4][1]), 0);
+    const perimeter = pts.reduce((s, p, k) => s + hypot(p[0] - pts[(k + 1) % 4][0], p[1] - pts[(k + 1) % 4][1]), 0);
     // A second copy of an id is a misread elsewhere in the photo: keep the larger, the card's.
     const seen = byId.get(id);
     if (!seen || perimeter > seen.perimeter) byId.set(id, { id, corners: pts, perimeter });
@@ -227,7 +230,7 @@ function cardHomography(cv: any, markers: Marker[], printScale: number, own: Own
   // A misread marker would drag the fit: every corner must land within a millimetre of its place.
   const mapped = applyHomography(H, markers.flatMap((m) => m.corners));
   for (let i = 0; i < mapped.length; i++)
-    if (Math.hypot(mapped[i][0] - dst[2 * i], mapped[i][1] - dst[2 * i + 1]) > 1) return null;
+    if (hypot(mapped[i][0] - dst[2 * i], mapped[i][1] - dst[2 * i + 1]) > 1) return null;
   return H;
 }
 
@@ -237,7 +240,7 @@ function markerSharpness(cv: any, gray: any, markers: Marker[], H: Homography, p
   let best = 0;
   for (const m of markers) {
     const [x0, y0] = markerCorners(m.id)[0].map((v) => (v - 2) * printScale);
-    const size = Math.ceil((CARD.markerSizeMm + 4) * printScale * scale);
+    const size = ceil((CARD.markerSizeMm + 4) * printScale * scale);
     const T = multiplyHomography([scale, 0, -scale * x0, 0, scale, -scale * y0, 0, 0, 1], H);
     const patch = own(new cv.Mat());
     const Tm = own(cv.matFromArray(3, 3, cv.CV_64F, T));
@@ -250,16 +253,16 @@ function markerSharpness(cv: any, gray: any, markers: Marker[], H: Homography, p
     const lapStd = std.data64F[0];
     cv.meanStdDev(patch, mean, std);
     const contrast = std.data64F[0];
-    if (contrast > 10) best = Math.max(best, lapStd / contrast);
+    if (contrast > 10) best = max(best, lapStd / contrast);
   }
   return best;
 }
 
 /** Without a card to judge by: the photo's sharpest edges, at ~1000 px across, against its contrast. */
 function globallyBlurry(cv: any, gray: any, own: Own): boolean {
-  const f = Math.min(1, 1000 / Math.max(gray.cols, gray.rows));
+  const f = min(1, 1000 / max(gray.cols, gray.rows));
   const small = own(new cv.Mat());
-  cv.resize(gray, small, new cv.Size(Math.round(gray.cols * f), Math.round(gray.rows * f)), 0, 0, cv.INTER_AREA);
+  cv.resize(gray, small, new cv.Size(round(gray.cols * f), round(gray.rows * f)), 0, 0, cv.INTER_AREA);
   const gx = own(new cv.Mat());
   const gy = own(new cv.Mat());
   cv.Sobel(small, gx, cv.CV_32F, 1, 0, 3);
@@ -269,10 +272,10 @@ function globallyBlurry(cv: any, gray: any, own: Own): boolean {
   const g = mag.data32F as Float32Array;
   const sortedG = Float32Array.from(g).sort();
   const p = Array.from(small.data as Uint8Array).sort((a, b) => a - b);
-  const contrast = p[Math.floor(p.length * 0.99)] - p[Math.floor(p.length * 0.01)];
-  const steepest = sortedG[Math.floor(sortedG.length * 0.999)] / 8;
+  const contrast = p[floor(p.length * 0.99)] - p[floor(p.length * 0.01)];
+  const steepest = sortedG[floor(sortedG.length * 0.999)] / 8;
   // A step of contrast C blurred by σ px has slope C / (σ √(2π)): this is σ at ~1000 px across.
-  const sigma = contrast / (Math.sqrt(2 * Math.PI) * Math.max(steepest, 1e-6));
+  const sigma = contrast / (sqrt(2 * PI) * max(steepest, 1e-6));
   return sigma > 2.5;
 }
 
@@ -283,6 +286,8 @@ interface Coarse {
   region: [number, number, number, number];
   centres: number[][];
   threshold: number;
+  /** How far the table's own colour typically strays from its clusters. */
+  tableLevel: number;
 }
 
 /** L counts half: shading and the light's fall-off change lightness far more than colour. */
@@ -300,7 +305,7 @@ function labDistance(lab: Float32Array, centres: number[][]): Float32Array {
       const d = (L - c[0]) ** 2 + (a - c[1]) ** 2 + (b - c[2]) ** 2;
       if (d < best) best = d;
     }
-    out[i] = Math.sqrt(best);
+    out[i] = sqrt(best);
   }
   return out;
 }
@@ -323,7 +328,7 @@ function kmeans(samples: number[][], k: number): number[][] {
     let far = samples[0];
     let farD = -1;
     for (const s of samples) {
-      const d = Math.min(...centres.map((c) => dist2(s, c)));
+      const d = min(...centres.map((c) => dist2(s, c)));
       if (d > farD) {
         farD = d;
         far = s;
@@ -369,8 +374,8 @@ function tableColours(samples: number[][], where: Point[], centre: Point): numbe
   samples.forEach((s, k) => {
     let best = 0;
     for (let c = 1; c < clusters.length; c++) if (dist2(s, clusters[c]) < dist2(s, clusters[best])) best = c;
-    const a = Math.atan2(where[k][1] - centre[1], where[k][0] - centre[0]);
-    seenIn[best].add(Math.floor(((a + Math.PI) / (2 * Math.PI)) * sectors) % sectors);
+    const a = atan2(where[k][1] - centre[1], where[k][0] - centre[0]);
+    seenIn[best].add(floor(((a + PI) / (2 * PI)) * sectors) % sectors);
   });
   const table = clusters.filter((_, c) => seenIn[c].size >= sectors * 0.3);
   return table.length ? table : clusters;
@@ -379,22 +384,22 @@ function tableColours(samples: number[][], where: Point[], centre: Point): numbe
 function photoPxPerMm(H: Homography, at: Point): number {
   const Hinv = invertHomography(H);
   const [a, b, c] = applyHomography(Hinv, [at, [at[0] + 1, at[1]], [at[0], at[1] + 1]]);
-  return Math.sqrt(Math.abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])));
+  return sqrt(abs((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])));
 }
 
 /** Warps (a suitably shrunk copy of) the photo to a top-down view of the real-mm rectangle at `pxPerMm`. */
 function rectify(cv: any, rgb: any, H: Homography, region: [number, number, number, number], pxPerMm: number, own: Own) {
   const [x0, y0, x1, y1] = region;
-  const width = Math.max(1, Math.round((x1 - x0) * pxPerMm));
-  const height = Math.max(1, Math.round((y1 - y0) * pxPerMm));
+  const width = max(1, round((x1 - x0) * pxPerMm));
+  const height = max(1, round((y1 - y0) * pxPerMm));
   const photoScale = photoPxPerMm(H, [(x0 + x1) / 2, (y0 + y1) / 2]);
   // Shrink first when the photo is much finer than the view, or warping would alias patterns.
-  const shrink = Math.min(1, (1.5 * pxPerMm) / photoScale);
+  const shrink = min(1, (1.5 * pxPerMm) / photoScale);
   let src = rgb;
   let Hs = H;
   if (shrink < 0.95) {
     src = own(new cv.Mat());
-    cv.resize(rgb, src, new cv.Size(Math.round(rgb.cols * shrink), Math.round(rgb.rows * shrink)), 0, 0, cv.INTER_AREA);
+    cv.resize(rgb, src, new cv.Size(round(rgb.cols * shrink), round(rgb.rows * shrink)), 0, 0, cv.INTER_AREA);
     // Pixel centres: x_full = (x_small + 0.5) / shrink - 0.5.
     const s = 1 / shrink;
     Hs = multiplyHomography(H, [s, 0, 0.5 * s - 0.5, 0, s, 0.5 * s - 0.5, 0, 0, 1]);
@@ -417,7 +422,7 @@ function rectify(cv: any, rgb: any, H: Homography, region: [number, number, numb
 function cardMask(cv: any, view: { width: number; height: number; x0: number; y0: number; pxPerMm: number }, printScale: number, own: Own) {
   const m = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
   const g = CARD_MARGIN_MM;
-  const toView = ([x, y]: Point) => [Math.round((x - view.x0) * view.pxPerMm), Math.round((y - view.y0) * view.pxPerMm)];
+  const toView = ([x, y]: Point) => [round((x - view.x0) * view.pxPerMm), round((y - view.y0) * view.pxPerMm)];
   const pts = [
     [-g, -g],
     [CARD.widthMm * printScale + g, -g],
@@ -445,12 +450,12 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
   const cy = (CARD.heightMm * printScale) / 2;
   const reach = 1200;
   const region: [number, number, number, number] = [
-    Math.max(cx - reach, Math.min(...seen.map((p) => p[0]))),
-    Math.max(cy - reach, Math.min(...seen.map((p) => p[1]))),
-    Math.min(cx + reach, Math.max(...seen.map((p) => p[0]))),
-    Math.min(cy + reach, Math.max(...seen.map((p) => p[1]))),
+    max(cx - reach, min(...seen.map((p) => p[0]))),
+    max(cy - reach, min(...seen.map((p) => p[1]))),
+    min(cx + reach, max(...seen.map((p) => p[0]))),
+    min(cy + reach, max(...seen.map((p) => p[1]))),
   ];
-  const scale = Math.min(1, COARSE_MAX_PX / Math.max(region[2] - region[0], region[3] - region[1]));
+  const scale = min(1, COARSE_MAX_PX / max(region[2] - region[0], region[3] - region[1]));
   const view = rectify(cv, rgb, H, region, scale, own);
   const card = cardMask(cv, view, printScale, own);
   const lab = toLab(cv, view.view, 1.5 * scale, own);
@@ -460,36 +465,35 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
 
   // The table: what lies in a band just inside the photo's edge (a block touching the edge is refused anyway).
   const band = own(new cv.Mat());
-  const bandWidth = Math.max(3, Math.round(0.07 * Math.min(view.width, view.height)));
+  const bandWidth = max(3, round(0.07 * min(view.width, view.height)));
   const k = own(cv.getStructuringElement(cv.MORPH_RECT, new cv.Size(2 * bandWidth + 1, 2 * bandWidth + 1)));
   cv.erode(view.footprint, band, k, new cv.Point(-1, -1), 1, cv.BORDER_CONSTANT, new cv.Scalar(0));
   const deep = bytes(band);
   const candidates: number[] = [];
   for (let i = 0; i < n; i++) if (foot[i] && !deep[i] && !cardPx[i]) candidates.push(i);
-  const step = Math.max(1, Math.floor(candidates.length / 4000));
+  const step = max(1, floor(candidates.length / 4000));
   const samples: number[][] = [];
   const where: Point[] = [];
   for (let j = 0; j < candidates.length; j += step) {
     const i = candidates[j];
     samples.push([lab[3 * i] * L_WEIGHT, lab[3 * i + 1], lab[3 * i + 2]]);
-    where.push([i % view.width, Math.floor(i / view.width)]);
+    where.push([i % view.width, floor(i / view.width)]);
   }
   const centres = tableColours(samples, where, [view.width / 2, view.height / 2]);
   const dist = labDistance(lab, centres);
 
   const hist = new Array<number>(256).fill(0);
-  for (let i = 0; i < n; i++) if (foot[i] && !cardPx[i]) hist[Math.min(255, Math.round(dist[i] * 2))]++;
+  for (let i = 0; i < n; i++) if (foot[i] && !cardPx[i]) hist[min(255, round(dist[i] * 2))]++;
   const otsu = otsuThreshold(hist).threshold / 2;
   // Otsu splits the most different colours from the rest, and a pieced block's palest patch can fall
   // on the table's side of that split; so never demand more than twice what the table itself strays by.
   const tableSpread = percentile(samples.map((s) => nearest(s, centres)), 0.95);
-  const threshold = Math.min(Math.max(otsu, MIN_CONTRAST), Math.max(2 * tableSpread, MIN_CONTRAST));
+  const threshold = min(max(otsu, MIN_CONTRAST), max(2 * tableSpread, MIN_CONTRAST));
 
   const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
   const md = mask.data as Uint8Array;
   for (let i = 0; i < n; i++) md[i] = foot[i] && !cardPx[i] && dist[i] > threshold ? 255 : 0;
-  cleanMask(cv, mask, Math.max(1, Math.round(2 * scale)), Math.max(1, Math.round(4 * scale)), own);
-  if (process.env.SV_DEBUG) (globalThis as any).__dbg = { mask: bytes(mask), view: bytes(view.view), w: view.width, h: view.height, foot, dist };
+  cleanMask(cv, mask, max(1, round(2 * scale)), max(1, round(4 * scale)), own);
 
   const blob = largestComponent(cv, mask, own, (MIN_BLOCK_MM * scale * 0.5) ** 2);
   if (!blob) {
@@ -502,7 +506,7 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
   const insideValues: number[] = [];
   for (let i = 0; i < n; i++) if (ld[i] === blob.label) insideValues.push(dist[i]);
   insideValues.sort((a, b) => a - b);
-  inside = insideValues[Math.floor(insideValues.length / 2)];
+  inside = insideValues[floor(insideValues.length / 2)];
   if (inside < MIN_CONTRAST) return { reason: 'low_contrast' };
 
   // Any part of it on the photo's edge (the footprint was already pulled in by 2 px).
@@ -513,8 +517,8 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
   for (let i = 0; i < n; i++) if (ld[i] === blob.label && !eb[i]) return { reason: 'block_touches_edge' };
 
   const [bx, by, bw, bh] = blob.box;
-  if (Math.max(bw, bh) / scale < MIN_BLOCK_MM) return { reason: 'too_small' };
-  const outline = outerContour(cv, blob, view.width, view.height, Math.max(2, Math.round(7 * scale)), own).map(
+  if (max(bw, bh) / scale < MIN_BLOCK_MM) return { reason: 'too_small' };
+  const outline = outerContour(cv, blob, view.width, view.height, max(2, round(7 * scale)), own).map(
     ([x, y]) => [region[0] + (x + 0.5) / scale, region[1] + (y + 0.5) / scale] as Point,
   );
   if (outline.length < 40) return { reason: 'block_not_found' };
@@ -524,6 +528,7 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
     region: [region[0] + bx / scale - margin, region[1] + by / scale - margin, region[0] + (bx + bw) / scale + margin, region[1] + (by + bh) / scale + margin],
     centres,
     threshold,
+    tableLevel: percentile(samples.map((p) => nearest(p, centres)), 0.5),
   };
 }
 
@@ -619,9 +624,11 @@ function fitBlockEdges(cv: any, rgb: any, H: Homography, coarse: Coarse, own: Ow
     let line = fitLine(cv, pts, own);
     // Twice: the second pass searches across a line already within a fraction of a millimetre.
     for (let pass = 0; pass < 2; pass++) {
-      const refined = refineEdge(line, centre, pts, dist, view.width, view.height, f);
-      if (process.env.SV_DEBUG) console.log('side', s, 'pass', pass, 'contour', pts.length, 'refined', refined.length);
+      const { points: refined, outside } = refineEdge(line, centre, pts, dist, view.width, view.height, f);
       if (refined.length < 20) return { reason: 'block_not_found' };
+      // Beyond a true edge lies table. Something else there means only part of the block stood out
+      // from a patterned table, and measuring that part would report a wrong size.
+      if (outside > coarse.tableLevel + OUTSIDE_SLACK) return { reason: 'low_contrast' };
       line = robustLine(cv, refined, own);
     }
     lines.push(line);
@@ -649,10 +656,10 @@ function robustLine(cv: any, pts: Point[], own: Own): Line {
   for (let pass = 0; pass < 2; pass++) {
     const [nx, ny] = [-line.direction[1], line.direction[0]];
     const res = pts.map(([x, y]) => (x - line.point[0]) * nx + (y - line.point[1]) * ny);
-    const abs = res.map(Math.abs).sort((a, b) => a - b);
-    const sigma = 1.4826 * abs[Math.floor(abs.length / 2)];
-    const limit = Math.max(3 * sigma, 0.3);
-    const kept = pts.filter((_, i) => Math.abs(res[i]) <= limit);
+    const absRes = res.map(abs).sort((a, b) => a - b);
+    const sigma = 1.4826 * absRes[floor(absRes.length / 2)];
+    const limit = max(3 * sigma, 0.3);
+    const kept = pts.filter((_, i) => abs(res[i]) <= limit);
     if (kept.length < 20) break;
     line = fitLine(cv, kept, own, cv.DIST_L2);
   }
@@ -660,7 +667,7 @@ function robustLine(cv: any, pts: Point[], own: Own): Line {
 }
 
 function outwardNormal(line: Line, centre: Point): Point {
-  const len = Math.hypot(line.direction[0], line.direction[1]);
+  const len = hypot(line.direction[0], line.direction[1]);
   let nx = -line.direction[1] / len;
   let ny = line.direction[0] / len;
   if ((line.point[0] - centre[0]) * nx + (line.point[1] - centre[1]) * ny < 0) {
@@ -675,25 +682,34 @@ function outwardNormal(line: Line, centre: Point): Point {
  * crosses halfway between the fabric's and the table's local levels: a sub-pixel edge point that a
  * threshold's bias and the mask's pixel steps do not move.
  */
-function refineEdge(line: Line, centre: Point, sidePoints: Point[], dist: Float32Array, width: number, height: number, f: number): Point[] {
-  const len = Math.hypot(line.direction[0], line.direction[1]);
+function refineEdge(
+  line: Line,
+  centre: Point,
+  sidePoints: Point[],
+  dist: Float32Array,
+  width: number,
+  height: number,
+  f: number,
+): { points: Point[]; outside: number } {
+  const len = hypot(line.direction[0], line.direction[1]);
   const [dx, dy] = [line.direction[0] / len, line.direction[1] / len];
   const [nx, ny] = outwardNormal(line, centre);
   // Only as far as this side's own contour points reach: they already stop short of the corners.
   const along = sidePoints.map(([x, y]) => (x - line.point[0]) * dx + (y - line.point[1]) * dy);
-  const tFrom = Math.min(...along);
-  const tTo = Math.max(...along);
+  const tFrom = min(...along);
+  const tTo = max(...along);
   const sample = (x: number, y: number): number => {
     if (x < 0 || y < 0 || x >= width - 1 || y >= height - 1) return NaN;
-    const x0 = Math.floor(x);
-    const y0 = Math.floor(y);
+    const x0 = floor(x);
+    const y0 = floor(y);
     const fx = x - x0;
     const fy = y - y0;
     const i = y0 * width + x0;
     return (dist[i] * (1 - fx) + dist[i + 1] * fx) * (1 - fy) + (dist[i + width] * (1 - fx) + dist[i + width + 1] * fx) * fy;
   };
-  const R = Math.round(EDGE_SEARCH_MM * f);
+  const R = round(EDGE_SEARCH_MM * f);
   const out: Point[] = [];
+  const outsides: number[] = [];
   const profile = new Float32Array(2 * R + 1);
   for (let t = tFrom; t <= tTo; t += 1) {
     const bx = line.point[0] + dx * t;
@@ -709,8 +725,9 @@ function refineEdge(line: Line, centre: Point, sidePoints: Point[], dist: Float3
       profile[k + R] = v;
     }
     if (!valid) continue;
-    const inner = median(profile.subarray(0, Math.round(R * 0.6)));
-    const outer = median(profile.subarray(2 * R + 1 - Math.round(R * 0.6)));
+    const inner = median(profile.subarray(0, round(R * 0.6)));
+    const outer = median(profile.subarray(2 * R + 1 - round(R * 0.6)));
+    outsides.push(outer);
     if (inner - outer < MIN_CONTRAST) continue;
     const level = (inner + outer) / 2;
     // The crossing nearest the rough line, fabric side to table side.
@@ -720,23 +737,23 @@ function refineEdge(line: Line, centre: Point, sidePoints: Point[], dist: Float3
       const b = profile[k + R + 1] - level;
       if (a >= 0 && b < 0) {
         const pos = k + a / (a - b);
-        if (Number.isNaN(bestK) || Math.abs(pos) < Math.abs(bestK)) bestK = pos;
+        if (Number.isNaN(bestK) || abs(pos) < abs(bestK)) bestK = pos;
       }
     }
-    if (Number.isNaN(bestK) || Math.abs(bestK) > R * 0.7) continue;
+    if (Number.isNaN(bestK) || abs(bestK) > R * 0.7) continue;
     out.push([bx + nx * bestK, by + ny * bestK]);
   }
-  return out;
+  return { points: out, outside: percentile(outsides, 0.5) };
 }
 
 function nearest(p: number[], centres: number[][]): number {
-  return Math.sqrt(Math.min(...centres.map((c) => (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2)));
+  return sqrt(min(...centres.map((c) => (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2)));
 }
 
 function percentile(values: number[], q: number): number {
   if (!values.length) return 0;
   const s = [...values].sort((a, b) => a - b);
-  return s[Math.min(s.length - 1, Math.floor(q * s.length))];
+  return s[min(s.length - 1, floor(q * s.length))];
 }
 
 function bytes(mat: any): Uint8Array {
@@ -745,5 +762,5 @@ function bytes(mat: any): Uint8Array {
 
 function median(values: Float32Array): number {
   const s = Float32Array.from(values).sort();
-  return s[Math.floor(s.length / 2)];
+  return s[floor(s.length / 2)];
 }
