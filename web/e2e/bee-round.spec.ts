@@ -188,7 +188,7 @@ test('a maker sees her own block and says where it is', async ({ page }) => {
     '12 1/2 x 12 1/2 in',
   );
   await mine.getByLabel('Made', { exact: true }).check();
-  await mine.getByRole('button', { name: 'Save' }).click();
+  await mine.getByRole('button', { name: 'Save', exact: true }).click();
   await expect(mine.getByRole('status').filter({ hasText: 'Saved: made.' })).toBeVisible();
   await shootBothWidths(page, 'round-maker');
 });
