@@ -1,13 +1,8 @@
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type Browser } from '@playwright/test';
 import { mkdirSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { newPerson, signIn } from './support';
+import { PHONE, SCREENSHOTS, newPerson, shootBothWidths, signIn } from './support';
 
-const SCREENSHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
-const AXE_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
-const PHONE = { width: 390, height: 844 };
-const DESKTOP = { width: 1280, height: 800 };
 const ORGANISER = 'agnes@wrenfield.example';
 const BEE_NAME = 'Lantern Street Bee';
 const GUILD_NAME = 'Wrenfield Quilt Guild';
@@ -78,28 +73,6 @@ async function findScenario(browser: Browser): Promise<Scenario> {
   } finally {
     await context.close();
   }
-}
-
-async function expectNoAxeViolations(page: Page, label: string) {
-  const results = await new AxeBuilder({ page }).withTags(AXE_TAGS).analyze();
-  const summary = results.violations.map(
-    (v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(' | ')}`,
-  );
-  expect(summary, `axe violations on ${label}`).toEqual([]);
-}
-
-/** A full-page picture at phone and desktop width, each checked with axe and for sideways scrolling. */
-async function shootBothWidths(page: Page, name: string) {
-  for (const viewport of [PHONE, DESKTOP]) {
-    await page.setViewportSize(viewport);
-    await page.evaluate(() => document.fonts.ready);
-    await page.waitForLoadState('networkidle').catch(() => undefined);
-    await page.screenshot({ path: `${SCREENSHOTS}${name}-${viewport.width}.png`, fullPage: true });
-    await expectNoAxeViolations(page, `${name} at ${viewport.width}px`);
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-    expect(overflow, `horizontal scroll on ${name} at ${viewport.width}px`).toBeLessThanOrEqual(0);
-  }
-  await page.setViewportSize(PHONE);
 }
 
 let scenario: Scenario;

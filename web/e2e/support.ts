@@ -1,4 +1,7 @@
+import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Browser, type BrowserContext, type Locator, type Page } from '@playwright/test';
+import { mkdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 
 export const DEMO_PASSWORD = 'quilting-bee-42';
 export const HAZEL = { email: 'hazel@wrenfield.example', name: 'Hazel Ormsby' };
@@ -105,4 +108,32 @@ export async function tabTo(page: Page, target: Locator, maxPresses = 250): Prom
     if (await target.evaluate((el) => el === document.activeElement).catch(() => false)) return;
   }
   throw new Error(`Could not reach ${target} with the Tab key`);
+}
+
+export const SCREENSHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
+export const AXE_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1280, height: 800 };
+
+export async function expectNoAxeViolations(page: Page, label: string) {
+  const results = await new AxeBuilder({ page }).withTags(AXE_TAGS).analyze();
+  const summary = results.violations.map(
+    (v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(' | ')}`,
+  );
+  expect(summary, `axe violations on ${label}`).toEqual([]);
+}
+
+/** A full-page picture at phone and desktop width, each checked with axe and for sideways scrolling. */
+export async function shootBothWidths(page: Page, name: string) {
+  mkdirSync(SCREENSHOTS, { recursive: true });
+  for (const viewport of [PHONE, DESKTOP]) {
+    await page.setViewportSize(viewport);
+    await page.evaluate(() => document.fonts.ready);
+    await page.waitForLoadState('networkidle').catch(() => undefined);
+    await page.screenshot({ path: `${SCREENSHOTS}${name}-${viewport.width}.png`, fullPage: true });
+    await expectNoAxeViolations(page, `${name} at ${viewport.width}px`);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow, `horizontal scroll on ${name} at ${viewport.width}px`).toBeLessThanOrEqual(0);
+  }
+  await page.setViewportSize(PHONE);
 }
