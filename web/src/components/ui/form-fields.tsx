@@ -14,6 +14,54 @@ function describedBy(...ids: Array<string | false | undefined>) {
   return value || undefined;
 }
 
+/**
+ * The label, error and help around one control, with the ids the control needs for
+ * aria-describedby. Text, textarea and select fields differ only in the control they render.
+ */
+function LabelledControl({
+  name,
+  label,
+  help,
+  optional,
+  className = 'mb-3',
+  children,
+}: {
+  name: string;
+  label: ReactNode;
+  help?: ReactNode;
+  optional?: boolean;
+  className?: string;
+  children: (state: ReturnType<typeof useFieldState> & { a11y: Record<string, unknown>; errorId?: string; helpId?: string }) => ReactNode;
+}) {
+  const id = useId();
+  const state = useFieldState(name);
+  const helpId = help ? `${id}-help` : undefined;
+  const errorId = state.error ? `${id}-error` : undefined;
+  const a11y = {
+    isInvalid: Boolean(state.error),
+    'aria-invalid': state.error ? true : undefined,
+  };
+  return (
+    <Form.Group className={className} controlId={id}>
+      <Form.Label>
+        {label}
+        {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
+      </Form.Label>
+      {children({ ...state, a11y, errorId, helpId })}
+      {state.error && (
+        <Form.Control.Feedback type="invalid" id={errorId}>
+          {state.error}
+        </Form.Control.Feedback>
+      )}
+      {help && (
+        <Form.Text id={helpId} className="d-block">
+          {help}
+        </Form.Text>
+      )}
+    </Form.Group>
+  );
+}
+
 type TextFieldProps = {
   name: string;
   label: ReactNode;
@@ -33,37 +81,20 @@ type TextFieldProps = {
 };
 
 export function TextField({ name, label, type = 'text', help, optional, className = 'mb-3', describedBy: extra, ...inputProps }: TextFieldProps) {
-  const id = useId();
-  const { field, error } = useFieldState(name);
-  const helpId = help ? `${id}-help` : undefined;
-  const errorId = error ? `${id}-error` : undefined;
   return (
-    <Form.Group className={className} controlId={id}>
-      <Form.Label>
-        {label}
-        {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
-      </Form.Label>
-      <Form.Control
-        {...field}
-        {...inputProps}
-        value={field.value ?? ''}
-        type={type}
-        isInvalid={Boolean(error)}
-        aria-invalid={error ? true : undefined}
-        aria-required={optional ? undefined : true}
-        aria-describedby={describedBy(errorId, helpId, extra)}
-      />
-      {error && (
-        <Form.Control.Feedback type="invalid" id={errorId}>
-          {error}
-        </Form.Control.Feedback>
+    <LabelledControl name={name} label={label} help={help} optional={optional} className={className}>
+      {({ field, a11y, errorId, helpId }) => (
+        <Form.Control
+          {...field}
+          {...inputProps}
+          {...a11y}
+          value={field.value ?? ''}
+          type={type}
+          aria-required={optional ? undefined : true}
+          aria-describedby={describedBy(errorId, helpId, extra)}
+        />
       )}
-      {help && (
-        <Form.Text id={helpId} className="d-block">
-          {help}
-        </Form.Text>
-      )}
-    </Form.Group>
+    </LabelledControl>
   );
 }
 
@@ -77,38 +108,21 @@ type TextareaFieldProps = {
 };
 
 export function TextareaField({ name, label, help, optional, rows = 4, autoComplete }: TextareaFieldProps) {
-  const id = useId();
-  const { field, error } = useFieldState(name);
-  const helpId = help ? `${id}-help` : undefined;
-  const errorId = error ? `${id}-error` : undefined;
   return (
-    <Form.Group className="mb-3" controlId={id}>
-      <Form.Label>
-        {label}
-        {optional && <span className="fw-normal text-body-secondary"> (optional)</span>}
-      </Form.Label>
-      <Form.Control
-        as="textarea"
-        rows={rows}
-        {...field}
-        value={field.value ?? ''}
-        autoComplete={autoComplete}
-        isInvalid={Boolean(error)}
-        aria-invalid={error ? true : undefined}
-        aria-required={optional ? undefined : true}
-        aria-describedby={describedBy(errorId, helpId)}
-      />
-      {error && (
-        <Form.Control.Feedback type="invalid" id={errorId}>
-          {error}
-        </Form.Control.Feedback>
+    <LabelledControl name={name} label={label} help={help} optional={optional}>
+      {({ field, a11y, errorId, helpId }) => (
+        <Form.Control
+          as="textarea"
+          rows={rows}
+          {...field}
+          {...a11y}
+          value={field.value ?? ''}
+          autoComplete={autoComplete}
+          aria-required={optional ? undefined : true}
+          aria-describedby={describedBy(errorId, helpId)}
+        />
       )}
-      {help && (
-        <Form.Text id={helpId} className="d-block">
-          {help}
-        </Form.Text>
-      )}
-    </Form.Group>
+    </LabelledControl>
   );
 }
 
@@ -258,37 +272,18 @@ type SelectFieldProps = {
 };
 
 export function SelectField({ name, label, options, help, placeholder }: SelectFieldProps) {
-  const id = useId();
-  const { field, error } = useFieldState(name);
-  const helpId = help ? `${id}-help` : undefined;
-  const errorId = error ? `${id}-error` : undefined;
   return (
-    <Form.Group className="mb-3" controlId={id}>
-      <Form.Label>{label}</Form.Label>
-      <Form.Select
-        {...field}
-        value={field.value ?? ''}
-        isInvalid={Boolean(error)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(errorId, helpId)}
-      >
-        {placeholder && <option value="">{placeholder}</option>}
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </Form.Select>
-      {error && (
-        <Form.Control.Feedback type="invalid" id={errorId}>
-          {error}
-        </Form.Control.Feedback>
+    <LabelledControl name={name} label={label} help={help}>
+      {({ field, a11y, errorId, helpId }) => (
+        <Form.Select {...field} {...a11y} value={field.value ?? ''} aria-describedby={describedBy(errorId, helpId)}>
+          {placeholder && <option value="">{placeholder}</option>}
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </Form.Select>
       )}
-      {help && (
-        <Form.Text id={helpId} className="d-block">
-          {help}
-        </Form.Text>
-      )}
-    </Form.Group>
+    </LabelledControl>
   );
 }

@@ -1,4 +1,4 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryOptions, useQuery, type QueryClient, type QueryKey } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 
 export type SizeCheckStatus = 'measured' | 'failed' | 'manual';
@@ -49,4 +49,16 @@ export const sizeChecksQueryOptions = (guildId: string, beeId: string, month: st
 /** A block's checks, newest first. */
 export function useSizeChecks(guildId: string, beeId: string, month: string, membershipId: number, enabled = true) {
   return useQuery({ ...sizeChecksQueryOptions(guildId, beeId, month, membershipId), enabled });
+}
+
+/** After a new check: its history, plus other queries that show the latest one (the round page). */
+export function invalidateSizeChecks(
+  queryClient: QueryClient,
+  key: { guildId: string; beeId: string; month: string; membershipId: number },
+  alsoInvalidate: readonly QueryKey[] = [],
+) {
+  return Promise.all([
+    queryClient.invalidateQueries({ queryKey: sizeChecksQueryOptions(key.guildId, key.beeId, key.month, key.membershipId).queryKey }),
+    ...alsoInvalidate.map((queryKey) => queryClient.invalidateQueries({ queryKey })),
+  ]);
 }

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient, type QueryKey } from '@tanstack/react-quer
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
 import { parseInches } from '@/lib/inches';
-import { blockPath, sizeChecksQueryOptions, type SizeCheck } from './get-size-checks';
+import { blockPath, invalidateSizeChecks, type SizeCheck } from './get-size-checks';
 
 /** Inch strings as she types them: "12 1/2", "12.5", "12½". */
 export type ManualSizeInput = { width: string; height: string };
@@ -36,10 +36,6 @@ export function useSaveManualSize(
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: ManualSizeInput) => saveManualSize(guildId, beeId, month, membershipId, input),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: sizeChecksQueryOptions(guildId, beeId, month, membershipId).queryKey }),
-        ...alsoInvalidate.map((queryKey) => queryClient.invalidateQueries({ queryKey })),
-      ]),
+    onSuccess: () => invalidateSizeChecks(queryClient, { guildId, beeId, month, membershipId }, alsoInvalidate),
   });
 }

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type QueryKey } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { blockPath, sizeChecksQueryOptions, type SizeCheck } from './get-size-checks';
+import { blockPath, invalidateSizeChecks, type SizeCheck } from './get-size-checks';
 
 export const PHOTO_TYPES = ['image/jpeg', 'image/png'] as const;
 export const PHOTO_MAX_BYTES = 20 * 1024 * 1024;
@@ -36,10 +36,6 @@ export function useUploadSizePhoto(
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: SizePhotoInput) => uploadSizePhoto(guildId, beeId, month, membershipId, input),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: sizeChecksQueryOptions(guildId, beeId, month, membershipId).queryKey }),
-        ...alsoInvalidate.map((queryKey) => queryClient.invalidateQueries({ queryKey })),
-      ]),
+    onSuccess: () => invalidateSizeChecks(queryClient, { guildId, beeId, month, membershipId }, alsoInvalidate),
   });
 }
