@@ -88,6 +88,9 @@ const MIN_CONTRAST = 9;
 const CARD_MARGIN_MM = 6;
 const EDGE_SEARCH_MM = 3;
 const OUTSIDE_SLACK = 6;
+/** Marks on a patterned table are smaller than this across; a patch of one colour this wide is fabric. */
+const PATCH_MIN_MM = 14;
+const MIN_MARK_CHROMA = 12;
 
 const MESSAGES: Record<RefusalReason, string> = {
   card_not_found:
@@ -293,19 +296,29 @@ interface Coarse {
 /** L counts half: shading and the light's fall-off change lightness far more than colour. */
 const L_WEIGHT = 0.5;
 
-function labDistance(lab: Float32Array, centres: number[][]): Float32Array {
+function labDistance(lab: Float32Array, centres: number[][], nearestOut?: Uint8Array): Float32Array {
   const n = lab.length / 3;
   const out = new Float32Array(n);
+  const k = centres.length;
+  const flat = Float64Array.from(centres.flat());
   for (let i = 0; i < n; i++) {
     const L = lab[3 * i] * L_WEIGHT;
     const a = lab[3 * i + 1];
     const b = lab[3 * i + 2];
     let best = Infinity;
-    for (const c of centres) {
-      const d = (L - c[0]) ** 2 + (a - c[1]) ** 2 + (b - c[2]) ** 2;
-      if (d < best) best = d;
+    let bestC = 0;
+    for (let c = 0; c < k; c++) {
+      const dL = L - flat[3 * c];
+      const da = a - flat[3 * c + 1];
+      const db = b - flat[3 * c + 2];
+      const d = dL * dL + da * da + db * db;
+      if (d < best) {
+        best = d;
+        bestC = c;
+      }
     }
     out[i] = sqrt(best);
+    if (nearestOut) nearestOut[i] = bestC;
   }
   return out;
 }
@@ -479,15 +492,38 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
     samples.push([lab[3 * i] * L_WEIGHT, lab[3 * i + 1], lab[3 * i + 2]]);
     where.push([i % view.width, floor(i / view.width)]);
   }
-  const centres = tableColours(samples, where, [view.width / 2, view.height / 2]);
-  const dist = labDistance(lab, centres);
+  const tableCentres = tableColours(samples, where, [view.width / 2, view.height / 2]);
+  const nearestCentre = new Uint8Array(n);
+  let dist = labDistance(lab, tableCentres, nearestCentre);
+  // A printed or spotted table mixes a ground colour with small marks of others. A patch of fabric can
+  // share a mark's colour, but not its size: wide regions of a minor colour are fabric, not table.
+  const share = tableCentres.map(() => 0);
+  for (const s of samples) share[nearestIndex(s, tableCentres)]++;
+  const ground = share.indexOf(max(...share));
+  const fabricLike = new Set<number>();
+  const patchR = max(1, round(PATCH_MIN_MM * 0.5 * scale));
+  for (let c = 0; c < tableCentres.length; c++) {
+    if (c === ground || share[c] > samples.length * 0.35) continue;
+    // Light and shadow make wide regions that differ mostly in lightness; marks differ in colour.
+    const [, a0, b0] = tableCentres[ground];
+    const [, a1, b1] = tableCentres[c];
+    if (hypot(a1 - a0, b1 - b0) < MIN_MARK_CHROMA) continue;
+    const minor = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
+    const md = minor.data as Uint8Array;
+    for (let i = 0; i < n; i++) md[i] = foot[i] && !cardPx[i] && nearestCentre[i] === c && dist[i] < MIN_CONTRAST ? 255 : 0;
+    const kp = own(cv.getStructuringElement(cv.MORPH_ELLIPSE, new cv.Size(2 * patchR + 1, 2 * patchR + 1)));
+    cv.morphologyEx(minor, minor, cv.MORPH_OPEN, kp);
+    if (cv.countNonZero(minor) > (PATCH_MIN_MM * scale) ** 2) fabricLike.add(c);
+  }
+  const centres = tableCentres.filter((_, c) => !fabricLike.has(c));
+  if (fabricLike.size) dist = labDistance(lab, centres);
 
   const hist = new Array<number>(256).fill(0);
   for (let i = 0; i < n; i++) if (foot[i] && !cardPx[i]) hist[min(255, round(dist[i] * 2))]++;
   const otsu = otsuThreshold(hist).threshold / 2;
   // Otsu splits the most different colours from the rest, and a pieced block's palest patch can fall
   // on the table's side of that split; so never demand more than twice what the table itself strays by.
-  const tableSpread = percentile(samples.map((s) => nearest(s, centres)), 0.95);
+  const tableSpread = percentile(samples.map((s) => nearest(s, tableCentres)), 0.95);
   const threshold = min(max(otsu, MIN_CONTRAST), max(2 * tableSpread, MIN_CONTRAST));
 
   const mask = own(new cv.Mat(view.height, view.width, cv.CV_8UC1, new cv.Scalar(0)));
@@ -528,7 +564,7 @@ function findBlockCoarsely(cv: any, rgb: any, H: Homography, printScale: number,
     region: [region[0] + bx / scale - margin, region[1] + by / scale - margin, region[0] + (bx + bw) / scale + margin, region[1] + (by + bh) / scale + margin],
     centres,
     threshold,
-    tableLevel: percentile(samples.map((p) => nearest(p, centres)), 0.5),
+    tableLevel: percentile(samples.map((p) => nearest(p, tableCentres)), 0.5),
   };
 }
 
@@ -744,6 +780,19 @@ function refineEdge(
     out.push([bx + nx * bestK, by + ny * bestK]);
   }
   return { points: out, outside: percentile(outsides, 0.5) };
+}
+
+function nearestIndex(p: number[], centres: number[][]): number {
+  let best = 0;
+  let bestD = Infinity;
+  centres.forEach((c, k) => {
+    const d = (p[0] - c[0]) ** 2 + (p[1] - c[1]) ** 2 + (p[2] - c[2]) ** 2;
+    if (d < bestD) {
+      bestD = d;
+      best = k;
+    }
+  });
+  return best;
 }
 
 function nearest(p: number[], centres: number[][]): number {
