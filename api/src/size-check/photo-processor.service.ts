@@ -1,4 +1,5 @@
 import { Injectable, OnModuleDestroy } from '@nestjs/common';
+import { availableParallelism } from 'node:os';
 import { extname, join } from 'node:path';
 import Piscina from 'piscina';
 import type { PhotoOutput, PhotoTask } from './photo.worker';
@@ -16,7 +17,8 @@ export class PhotoProcessor implements OnModuleDestroy {
     this.pool = new Piscina({
       filename: join(__dirname, `photo.worker${ext}`),
       minThreads: 0,
-      maxThreads: 2,
+      // One core stays with the event loop, so other requests stay quick while photos are measured.
+      maxThreads: Math.max(1, availableParallelism() - 1),
       idleTimeout: 60_000,
       execArgv: ext === '.ts' ? ['-r', 'ts-node/register/transpile-only'] : [],
       resourceLimits: { maxOldGenerationSizeMb: 1536 },

@@ -91,7 +91,7 @@ export class SizeChecksService {
     let output;
     try {
       // A private copy goes to the worker, so the transfer never detaches memory the request shares.
-      output = await this.processor.process({ bytes: new Uint8Array(file.buffer), printScale: scale });
+      output = await this.processor.process({ bytes: new Uint8Array(file.buffer), type: intake.type, printScale: scale });
     } catch {
       throw new UnprocessableEntityException({
         message: 'Selvage could not read that photo; it may be damaged or cut short. Take it again and upload it.',
