@@ -270,6 +270,7 @@ async function bench() {
   await startApi(env);
   await mustRun('http bench', 'npx', ['tsx', join(API, 'scripts', 'bench.ts')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
   await mustRun('fan-out bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-fanout.js')], env);
+  await mustRun('12 MP photo load bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-photos.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
   // The size check's accuracy and speed on photographs with known truth (a fixed seed).
   const photos = join(dir, 'photos');
   await mustRun('photo fixtures', process.execPath, [join(API, 'dist', 'scripts', 'generate-photo-fixtures.js'), photos], process.env);
