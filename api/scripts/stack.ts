@@ -19,6 +19,8 @@ interface Ports {
   smtp: number;
   smtpHttp: number;
   api: number;
+  /** The local payments fake (card checkout, refunds, signed webhooks). */
+  payments: number;
 }
 
 const children = new Set<ChildProcess>();
@@ -133,6 +135,37 @@ function startSmtpFake(ports: Ports, dir: string) {
   return waitForHttp(`http://127.0.0.1:${ports.smtpHttp}/health`);
 }
 
+/**
+ * The payments fake, sending its signed events to this stack's api. Returns the variables the api
+ * (and jest) need to use it. With PAYMENTS_SECRET_KEY already set (a real account), `start` and `dev`
+ * leave the fake out and pass the caller's PAYMENTS_* through instead.
+ */
+async function startPaymentsFake(ports: Ports, dir: string, webhookSecret: string): Promise<NodeJS.ProcessEnv> {
+  startBackground('payments fake', process.execPath, [join(API, 'dist', 'fakes', 'payments', 'main.js')], {
+    ...process.env,
+    PAYMENTS_FAKE_PORT: String(ports.payments),
+    PAYMENTS_FAKE_DIR: dir,
+    PAYMENTS_FAKE_WEBHOOK_URL: `http://127.0.0.1:${ports.api}/api/payments/webhook`,
+    PAYMENTS_FAKE_WEBHOOK_SECRET: webhookSecret,
+  });
+  await waitForHttp(`http://127.0.0.1:${ports.payments}/_fake/health`);
+  log(`payments fake on http://127.0.0.1:${ports.payments} (test cards: 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)`);
+  return {
+    PAYMENTS_SECRET_KEY: 'sk_test_selvage_local',
+    PAYMENTS_WEBHOOK_SECRET: webhookSecret,
+    PAYMENTS_API_URL: `http://127.0.0.1:${ports.payments}`,
+  };
+}
+
+/** For start and dev: the caller's own payment-service settings, or the fake's. */
+async function paymentsFor(ports: Ports): Promise<NodeJS.ProcessEnv> {
+  if (process.env.PAYMENTS_SECRET_KEY) {
+    log(`payments: using PAYMENTS_SECRET_KEY from the environment${process.env.PAYMENTS_API_URL ? ` at ${process.env.PAYMENTS_API_URL}` : ' (the real service)'}`);
+    return {};
+  }
+  return startPaymentsFake(ports, join(DATA, 'payments'), `whsec_${persistentSecret(join(DATA, 'payments-webhook-secret'))}`);
+}
+
 async function migrateAndSeed(env: NodeJS.ProcessEnv, seed: boolean) {
   const cli = join(API, 'dist', 'src', 'database', 'db-cli.js');
   await mustRun('migrations', process.execPath, [cli, 'migrate'], env);
@@ -152,11 +185,14 @@ async function start() {
     smtp: Number(process.env.SMTP_FAKE_PORT ?? 2525),
     smtpHttp: Number(process.env.SMTP_FAKE_HTTP_PORT ?? 2580),
     api: Number(process.env.PORT ?? 3000),
+    payments: Number(process.env.PAYMENTS_FAKE_PORT ?? 12111),
   };
   const dbPassword = persistentSecret(join(DATA, 'db-password'));
   await startDatabase(join(DATA, 'db'), ports.db, 'selvage', dbPassword, false);
   await startSmtpFake(ports, join(DATA, 'mail'));
+  const payments = await paymentsFor(ports);
   const env = apiEnv(ports, 'selvage', dbPassword, {
+    ...payments,
     SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(join(DATA, 'session-secret')),
     WEB_DIST_DIR: join(WEB, 'dist'),
     LOG_PRETTY: process.env.LOG_PRETTY ?? 'true',
@@ -167,15 +203,17 @@ async function start() {
   await new Promise(() => undefined);
 }
 
-/** `npm run dev`: MariaDB and the SMTP fake as for start, then the api in watch mode and Vite. */
+/** `npm run dev`: MariaDB and the fakes as for start, then the api in watch mode and Vite. */
 async function dev() {
   mkdirSync(DATA, { recursive: true });
-  const ports: Ports = { db: 3407, smtp: 2525, smtpHttp: 2580, api: Number(process.env.PORT ?? 3000) };
+  const ports: Ports = { db: 3407, smtp: 2525, smtpHttp: 2580, api: Number(process.env.PORT ?? 3000), payments: 12111 };
   const dbPassword = persistentSecret(join(DATA, 'db-password'));
   await mustRun('api build', 'npm', ['run', 'build', '-w', 'api'], process.env);
   await startDatabase(join(DATA, 'db'), ports.db, 'selvage', dbPassword, false);
   await startSmtpFake(ports, join(DATA, 'mail'));
+  const payments = await paymentsFor(ports);
   const env = apiEnv(ports, 'selvage', dbPassword, {
+    ...payments,
     NODE_ENV: 'development',
     SESSION_SECRET: persistentSecret(join(DATA, 'session-secret')),
     EXTRA_ORIGINS: 'http://127.0.0.1:5173,http://localhost:5173',
@@ -197,7 +235,7 @@ async function test() {
   const dir = join(DATA, 'test');
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
-  const ports: Ports = { db: 3417, smtp: 2535, smtpHttp: 2590, api: 3100 };
+  const ports: Ports = { db: 3417, smtp: 2535, smtpHttp: 2590, api: 3100, payments: 12121 };
   const dbPassword = randomBytes(12).toString('hex');
   const db = await startDatabase(join(dir, 'db'), ports.db, 'selvage_test', dbPassword, true);
   db.sql('CREATE DATABASE IF NOT EXISTS selvage_e2e CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;');
@@ -207,8 +245,11 @@ async function test() {
   await mustRun('api type-check', 'npm', ['run', 'typecheck', '-w', 'api'], process.env);
   await mustRun('web build', 'npm', ['run', 'build', '-w', 'web'], process.env);
   await startSmtpFake(ports, join(dir, 'mail'));
+  // Its events go to the browser tests' api; the api e2e tests start their own fake in-process.
+  const payments = await startPaymentsFake(ports, join(dir, 'payments'), `whsec_${randomBytes(16).toString('hex')}`);
 
   const jestEnv = apiEnv(ports, 'selvage_test', dbPassword, {
+    ...payments,
     NODE_ENV: 'test',
     LOG_LEVEL: 'warn',
     SESSION_SECRET: randomBytes(32).toString('hex'),
@@ -225,6 +266,7 @@ async function test() {
 
   log('browser tests (Playwright, Debian chromium) against a freshly seeded database');
   const e2eEnv = apiEnv(ports, 'selvage_e2e', dbPassword, {
+    ...payments,
     NODE_ENV: 'test',
     LOG_LEVEL: 'warn',
     SESSION_SECRET: randomBytes(32).toString('hex'),
@@ -256,12 +298,14 @@ async function bench() {
   const dir = join(DATA, 'bench');
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
-  const ports: Ports = { db: 3427, smtp: 2545, smtpHttp: 2600, api: 3200 };
+  const ports: Ports = { db: 3427, smtp: 2545, smtpHttp: 2600, api: 3200, payments: 12131 };
   const dbPassword = randomBytes(12).toString('hex');
   await mustRun('api build', 'npm', ['run', 'build', '-w', 'api'], process.env);
   await startDatabase(join(dir, 'db'), ports.db, 'selvage_bench', dbPassword, true);
   await startSmtpFake(ports, join(dir, 'mail'));
+  const payments = await startPaymentsFake(ports, join(dir, 'payments'), `whsec_${randomBytes(16).toString('hex')}`);
   const env = apiEnv(ports, 'selvage_bench', dbPassword, {
+    ...payments,
     SESSION_SECRET: randomBytes(32).toString('hex'),
     LOG_LEVEL: 'warn',
     UPLOADS_DIR: join(dir, 'uploads'),

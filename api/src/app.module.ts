@@ -9,9 +9,10 @@ import { HttpErrorFilter } from './common/filters/http-error.filter';
 import { AuthenticatedGuard } from './common/guards/authenticated.guard';
 import { GuildAccessGuard } from './common/guards/guild-access.guard';
 import { OriginGuard } from './common/guards/origin.guard';
-import { appConfig, authConfig, beesConfig, mailConfig } from './config/app.config';
+import { appConfig, authConfig, beesConfig, mailConfig, paymentsConfig } from './config/app.config';
 import { validateEnv } from './config/env.validation';
 import { DashboardModule } from './dashboard/dashboard.module';
+import { DuesModule } from './dues/dues.module';
 import { DevInboxModule } from './dev-inbox/dev-inbox.module';
 import { GuildsModule } from './guilds/guilds.module';
 import { BeesModule } from './bees/bees.module';
@@ -28,7 +29,7 @@ import { ProfileModule } from './profile/profile.module';
 
 @Module({
   imports: [
-    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig, beesConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, validate: validateEnv, load: [appConfig, authConfig, mailConfig, beesConfig, paymentsConfig] }),
     LoggerModule.forRoot({
       forRoutes: [{ path: '{*path}', method: RequestMethod.ALL }],
       pinoHttp: {
@@ -58,6 +59,7 @@ import { ProfileModule } from './profile/profile.module';
     RoundsModule,
     LayoutModule,
     SizeCheckModule,
+    DuesModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

@@ -13,6 +13,16 @@ import { Invitation } from './invitations/invitation.entity';
 import { OutboxMessage } from './outbox/outbox-message.entity';
 import { SessionRecord } from './sessions/session-record.entity';
 import { User } from './users/user.entity';
+import { DuesInvoice } from './dues/dues-invoice.entity';
+import { DuesPayment } from './dues/dues-payment.entity';
+import { DuesPlan } from './dues/dues-plan.entity';
+import { DuesRefund } from './dues/dues-refund.entity';
+import { DuesSettingsRecord } from './dues/dues-settings.entity';
+import { DuesStanding } from './dues/dues-standing.entity';
+import { Household } from './dues/household.entity';
+import { MoneyAuditEntry } from './dues/money-audit.entity';
+import { PaymentWebhookEvent } from './dues/payment-webhook-event.entity';
+import { ReceiptCounter } from './dues/receipt-counter.entity';
 
 /** Every entity, listed once for the app, the CLI and the tests. */
 export const ENTITIES = [
@@ -31,4 +41,14 @@ export const ENTITIES = [
   RoundFile,
   RoundBlock,
   SizeCheck,
+  DuesSettingsRecord,
+  DuesPlan,
+  Household,
+  DuesStanding,
+  DuesInvoice,
+  DuesPayment,
+  DuesRefund,
+  ReceiptCounter,
+  PaymentWebhookEvent,
+  MoneyAuditEntry,
 ];

@@ -65,6 +65,30 @@ const ACCESS: Record<string, Access> = {
   'GET /api/guilds/:guildId/bees/:beeId/rounds/:month/blocks/:membershipId/size-checks': 'member',
   'GET /api/guilds/:guildId/size-checks/:checkId/images/:kind': 'member',
   'GET /api/size-check/card.pdf': 'signed-in',
+  // Dues: a member sees the rules, the plans on offer and her own dues and invoices (another
+  // member's invoice is a 404, checked in dues.e2e-spec.ts); the treasurer keeps the books.
+  'GET /api/guilds/:guildId/dues/settings': 'member',
+  'PUT /api/guilds/:guildId/dues/settings': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/plans': 'member',
+  'POST /api/guilds/:guildId/dues/plans': ['treasurer'],
+  'PATCH /api/guilds/:guildId/dues/plans/:planId': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/me': 'member',
+  'POST /api/guilds/:guildId/dues/checkout': 'member',
+  'GET /api/guilds/:guildId/dues/ledger': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/ledger.csv': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/invoices/:invoiceId': 'member',
+  'GET /api/guilds/:guildId/dues/invoices/:invoiceId/receipt.pdf': 'member',
+  'POST /api/guilds/:guildId/dues/payments': ['treasurer'],
+  'POST /api/guilds/:guildId/dues/invoices/:invoiceId/refunds': ['treasurer'],
+  'POST /api/guilds/:guildId/dues/invoices/:invoiceId/void': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/roster': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/roster.csv': ['treasurer'],
+  'PATCH /api/guilds/:guildId/dues/members/:membershipId': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/households': ['treasurer'],
+  'POST /api/guilds/:guildId/dues/households': ['treasurer'],
+  'GET /api/guilds/:guildId/dues/audit': ['treasurer'],
+  // Signed by the payment service instead of a session (a bad signature is a 400).
+  'POST /api/payments/webhook': 'public',
 };
 
 interface Layer {
@@ -143,6 +167,8 @@ describe('every route against the access table (real MariaDB)', () => {
         .replace(':month', '2027-01')
         .replace(':fileId', '1')
         .replace(':checkId', '999999')
+        .replace(':planId', '999999')
+        .replace(':invoiceId', '999999')
         .replace(':kind', 'display')
         .replace(':token', 'no-such-token-000000000000')
         .replace(':id', 'none')

@@ -2,6 +2,13 @@ import { MikroORM } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { Test } from '@nestjs/testing';
 import { randomBytes } from 'node:crypto';
+import * as http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import Stripe from 'stripe';
+import { startPaymentsFake, type PaymentsFakeHandle } from '../fakes/payments/payments-fake';
 import request from 'supertest';
 import TestAgent from 'supertest/lib/agent';
 import { AppModule } from '../src/app.module';
@@ -101,6 +108,7 @@ export interface InboxMessage {
   text: string;
   html: string;
   headers: Record<string, string>;
+  attachments?: { filename: string; contentType: string; contentBase64: string }[];
 }
 
 /** Waits for the SMTP fake to hold a message to `to` that matches, and returns it in full. */
@@ -123,4 +131,138 @@ export function linkIn(text: string, pathPrefix: string): string {
   const m = text.match(new RegExp(`https?://[^\\s"<>]+${pathPrefix.replace(/[/?]/g, '\\$&')}[^\\s"<>]*`));
   if (!m) throw new Error(`no ${pathPrefix} link in:\n${text}`);
   return m[0];
+}
+
+/** An event the relay received from the payments fake, as sent (the raw JSON body). */
+export interface RelayedEvent {
+  id: string;
+  type: string;
+  body: string;
+  /** What the api answered when the relay passed it on; null when it was held or refused. */
+  status: number | null;
+}
+
+export interface PaymentsHarness {
+  fake: PaymentsFakeHandle;
+  /** The SDK pointed at the fake, with the api's key: for looking at what the service holds. */
+  stripe: Stripe;
+  webhookSecret: string;
+  /** forward: pass events to the api; hold: answer 200 and keep them; fail: answer 503 (the fake retries). */
+  mode: 'forward' | 'hold' | 'fail';
+  events: RelayedEvent[];
+  /** Call once the app exists: the relay forwards events to it. */
+  attach(t: TestApp): void;
+  /** Pays a Checkout Session the way the hosted page does; answers with the fake's JSON. */
+  pay(sessionId: string, card?: string): Promise<{ status: number; body: Record<string, unknown> }>;
+  /** Sends the body to the api's webhook with a fresh signature (optionally with another timestamp). */
+  deliver(body: string, opts?: { timestamp?: number; secret?: string }): Promise<request.Response>;
+  /** Waits until the fake has no deliveries left to make. */
+  drained(timeoutMs?: number): Promise<void>;
+  close(): Promise<void>;
+}
+
+/**
+ * The payments fake for e2e tests, with a relay in front of the api's webhook so a test can hold,
+ * refuse, reorder or repeat events. Call before createTestApp: it sets the PAYMENTS_* variables the
+ * app reads when it is created.
+ */
+export async function startPaymentsHarness(): Promise<PaymentsHarness> {
+  const webhookSecret = `whsec_test_${randomBytes(12).toString('hex')}`;
+  const secretKey = 'sk_test_selvage_e2e';
+  let app: TestApp | null = null;
+  const relay = http.createServer((req, res) => {
+    const chunks: Buffer[] = [];
+    req.on('data', (c: Buffer) => chunks.push(c));
+    req.on('end', () => {
+      const body = Buffer.concat(chunks).toString('utf8');
+      const parsed = JSON.parse(body) as { id: string; type: string };
+      const entry: RelayedEvent = { id: parsed.id, type: parsed.type, body, status: null };
+      harness.events.push(entry);
+      if (harness.mode === 'fail' || !app) {
+        res.writeHead(503).end();
+        return;
+      }
+      if (harness.mode === 'hold') {
+        res.writeHead(200).end();
+        return;
+      }
+      request(app.http)
+        .post('/api/payments/webhook')
+        .set('Content-Type', 'application/json')
+        .set('Stripe-Signature', String(req.headers['stripe-signature'] ?? ''))
+        .send(body)
+        .then((r) => {
+          entry.status = r.status;
+          res.writeHead(r.status).end();
+        })
+        .catch(() => res.writeHead(502).end());
+    });
+  });
+  await new Promise<void>((r) => relay.listen(0, '127.0.0.1', () => r()));
+  const relayPort = (relay.address() as AddressInfo).port;
+  const dataDir = mkdtempSync(join(tmpdir(), 'selvage-payments-'));
+  const fake = await startPaymentsFake({
+    port: 0,
+    dataDir,
+    webhookUrl: `http://127.0.0.1:${relayPort}/webhook`,
+    webhookSecret,
+    webhookRetryBaseMs: 200,
+    webhookRetryMaxMs: 1000,
+  });
+  process.env.PAYMENTS_SECRET_KEY = secretKey;
+  process.env.PAYMENTS_WEBHOOK_SECRET = webhookSecret;
+  process.env.PAYMENTS_API_URL = fake.url;
+  const harness: PaymentsHarness = {
+    fake,
+    stripe: new Stripe(secretKey, { host: '127.0.0.1', port: fake.port, protocol: 'http', maxNetworkRetries: 0 }),
+    webhookSecret,
+    mode: 'forward',
+    events: [],
+    attach(t) {
+      app = t;
+    },
+    async pay(sessionId, card = '4242 4242 4242 4242') {
+      const res = await fetch(`${fake.url}/_fake/checkout/${sessionId}/pay`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ card }),
+      });
+      return { status: res.status, body: (await res.json()) as Record<string, unknown> };
+    },
+    deliver(body, opts = {}) {
+      if (!app) throw new Error('attach the app first');
+      const header = Stripe.webhooks.generateTestHeaderString({
+        payload: body,
+        secret: opts.secret ?? webhookSecret,
+        timestamp: opts.timestamp ?? Math.floor(Date.now() / 1000),
+      });
+      return request(app.http).post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', header).send(body);
+    },
+    async drained(timeoutMs = 20_000) {
+      const started = Date.now();
+      for (;;) {
+        const state = (await (await fetch(`${fake.url}/_fake/deliveries`)).json()) as { pending: unknown[] };
+        if (state.pending.length === 0) return;
+        if (Date.now() - started > timeoutMs) throw new Error(`${state.pending.length} webhook deliveries still pending`);
+        await new Promise((r) => setTimeout(r, 100));
+      }
+    },
+    async close() {
+      await fake.close();
+      await new Promise<void>((r) => relay.close(() => r()));
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+  return harness;
+}
+
+/** Polls until `check` returns a value (not undefined/false), or fails after the timeout. */
+export async function eventually<T>(check: () => Promise<T | undefined | false>, timeoutMs = 20_000, what = 'condition'): Promise<T> {
+  const started = Date.now();
+  for (;;) {
+    const value = await check();
+    if (value !== undefined && value !== false) return value;
+    if (Date.now() - started > timeoutMs) throw new Error(`${what} not reached within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
 }

@@ -36,6 +36,17 @@ export const beesConfig = registerAs('bees', () => ({
 }));
 export type BeesConfig = ReturnType<typeof beesConfig>;
 
+/**
+ * The card-payment service. apiUrl points the official SDK at another host (the local fake, e.g.
+ * http://127.0.0.1:12111); empty means the real service. No secret key: online payment is off.
+ */
+export const paymentsConfig = registerAs('payments', () => ({
+  secretKey: process.env.PAYMENTS_SECRET_KEY ?? '',
+  webhookSecret: process.env.PAYMENTS_WEBHOOK_SECRET ?? '',
+  apiUrl: process.env.PAYMENTS_API_URL ?? '',
+}));
+export type PaymentsConfig = ReturnType<typeof paymentsConfig>;
+
 export type AppConfig = ReturnType<typeof appConfig>;
 export type AuthConfig = ReturnType<typeof authConfig>;
 export type MailConfig = ReturnType<typeof mailConfig>;

@@ -31,6 +31,23 @@ export const envSchema = Joi.object({
   OUTBOX_POLL_MS: Joi.number().integer().min(50).default(1000),
   OUTBOX_ENABLED: Joi.boolean().default(true),
 
+  // Card payments: all three empty turns online payment off (cash and cheque still work).
+  PAYMENTS_SECRET_KEY: Joi.string()
+    .pattern(/^(sk|rk)_(test|live)_[A-Za-z0-9_]+$/)
+    .allow('')
+    .default('')
+    .messages({ 'string.pattern.base': 'PAYMENTS_SECRET_KEY must be a secret key such as sk_test_… or sk_live_…' }),
+  PAYMENTS_WEBHOOK_SECRET: Joi.string()
+    .pattern(/^whsec_[A-Za-z0-9_]+$/)
+    .allow('')
+    .default('')
+    .when('PAYMENTS_SECRET_KEY', { is: Joi.string().min(1), then: Joi.string().empty('').required() })
+    .messages({
+      'string.pattern.base': 'PAYMENTS_WEBHOOK_SECRET must be a webhook signing secret such as whsec_…',
+      'any.required': 'PAYMENTS_WEBHOOK_SECRET is required when PAYMENTS_SECRET_KEY is set',
+    }),
+  PAYMENTS_API_URL: Joi.string().uri({ scheme: ['http', 'https'] }).allow('').default(''),
+
   AUTH_ACCOUNT_FAILURE_LIMIT: Joi.number().integer().min(1).default(10),
   AUTH_ADDRESS_FAILURE_LIMIT: Joi.number().integer().min(1).default(100),
   AUTH_FAILURE_WINDOW_MINUTES: Joi.number().integer().min(1).default(15),

@@ -4,6 +4,7 @@ import {
   Plan,
   ageOn,
   assertDuesSettings,
+  duesSettingsProblems,
   formatDate,
   graceEndsOn,
   memberStanding,
@@ -430,6 +431,28 @@ describe('quoteDues for joining members', () => {
     );
     // A former member whose membership ran out can.
     expect(total(quoteDues({ plan: standard, settings: calendar, paidThrough: '2024-12-31', today: '2026-05-01', joining: true }))).toBe(2500);
+  });
+});
+
+describe('duesSettingsProblems', () => {
+  it('names the field each problem is about, so a form can show it in place', () => {
+    const problems = duesSettingsProblems({
+      ...calendar,
+      currency: 'XYZ',
+      dueMonth: 2,
+      dueDay: 30,
+      graceDays: -1,
+      proration: [
+        { fromMonth: 3, charge: 'full', coversNextYear: false },
+        { fromMonth: 7, charge: 'third' as 'half', coversNextYear: false },
+      ],
+    });
+    expect(problems.map((p) => p.field)).toEqual(['currency', 'dueDay', 'graceDays', 'proration.1.charge', 'proration']);
+    expect(problems.map((p) => p.message)).toEqual(validateDuesSettings({ ...calendar, currency: 'XYZ', dueMonth: 2, dueDay: 30, graceDays: -1, proration: [
+      { fromMonth: 3, charge: 'full', coversNextYear: false },
+      { fromMonth: 7, charge: 'third' as 'half', coversNextYear: false },
+    ] }));
+    expect(problems[0].message).toBe('"XYZ" is not a currency this system knows.');
   });
 });
 

@@ -225,62 +225,77 @@ const isWhole = (n: unknown): n is number => typeof n === 'number' && Number.isS
 /** Position of a month inside the membership year: 0 for the first month, 11 for the last. */
 const positionInYear = (month: number, startMonth: number) => (month - startMonth + 12) % 12;
 
+/** A problem with one setting: `field` is the settings key (`proration.2` for the third band). */
+export interface SettingsProblem {
+  field: string;
+  message: string;
+}
+
 /** Every problem with the settings, as sentences a treasurer can act on; empty when they are usable. */
 export function validateDuesSettings(settings: DuesSettings): string[] {
-  if (!settings || typeof settings !== 'object') return ['Dues settings are missing.'];
-  const problems: string[] = [];
+  return duesSettingsProblems(settings).map((p) => p.message);
+}
+
+/** The same problems as validateDuesSettings, each with the field it is about, for forms. */
+export function duesSettingsProblems(settings: DuesSettings): SettingsProblem[] {
+  if (!settings || typeof settings !== 'object') return [{ field: 'settings', message: 'Dues settings are missing.' }];
+  const problems: SettingsProblem[] = [];
+  const add = (field: string, message: string) => problems.push({ field, message });
   const { currency, yearStartMonth, dueMonth, dueDay, graceDays, lateFeeCents, proration, earlyRenewalDays } = settings;
 
   try {
     minorUnitDigits(currency);
   } catch (e) {
-    problems.push(e instanceof MoneyError ? e.message : `"${String(currency)}" is not a currency code.`);
+    add('currency', e instanceof MoneyError ? e.message : `"${String(currency)}" is not a currency code.`);
   }
   if (!isMonth(yearStartMonth))
-    problems.push(`The membership year must start in a month numbered 1 to 12, got ${String(yearStartMonth)}.`);
-  if (!isMonth(dueMonth)) problems.push(`The due month must be numbered 1 to 12, got ${String(dueMonth)}.`);
+    add('yearStartMonth', `The membership year must start in a month numbered 1 to 12, got ${String(yearStartMonth)}.`);
+  if (!isMonth(dueMonth)) add('dueMonth', `The due month must be numbered 1 to 12, got ${String(dueMonth)}.`);
   else {
     // February allows 29, read as "the last day of February".
     const maxDay = DateTime.utc(2000, dueMonth).daysInMonth!;
     if (!isWhole(dueDay) || dueDay < 1 || dueDay > maxDay)
-      problems.push(`The due day must be a day of ${MONTHS[dueMonth - 1]} (1 to ${maxDay}), got ${String(dueDay)}.`);
+      add('dueDay', `The due day must be a day of ${MONTHS[dueMonth - 1]} (1 to ${maxDay}), got ${String(dueDay)}.`);
   }
   if (!isWhole(graceDays) || graceDays < 0 || graceDays > MAX_GRACE_DAYS)
-    problems.push(`The grace period must be a whole number of days from 0 to ${MAX_GRACE_DAYS}, got ${String(graceDays)}.`);
+    add('graceDays', `The grace period must be a whole number of days from 0 to ${MAX_GRACE_DAYS}, got ${String(graceDays)}.`);
   if (!isWhole(lateFeeCents) || lateFeeCents < 0)
-    problems.push(`The late fee must be a whole number of cents, 0 or more, got ${String(lateFeeCents)}.`);
+    add('lateFeeCents', `The late fee must be a whole number of cents, 0 or more, got ${String(lateFeeCents)}.`);
   if (earlyRenewalDays !== undefined && (!isWhole(earlyRenewalDays) || earlyRenewalDays < 0 || earlyRenewalDays > MAX_EARLY_RENEWAL_DAYS))
-    problems.push(
+    add(
+      'earlyRenewalDays',
       `Early renewal must open a whole number of days from 0 to ${MAX_EARLY_RENEWAL_DAYS} before the due date, got ${String(earlyRenewalDays)}.`,
     );
 
-  if (!Array.isArray(proration)) problems.push('The proration bands must be a list (it may be empty).');
+  if (!Array.isArray(proration)) add('proration', 'The proration bands must be a list (it may be empty).');
   else {
     let bandsUsable = true;
     proration.forEach((band, i) => {
       const n = i + 1;
       if (!band || typeof band !== 'object') {
-        problems.push(`Proration band ${n} is missing.`);
+        add(`proration.${i}`, `Proration band ${n} is missing.`);
         bandsUsable = false;
         return;
       }
       if (!isMonth(band.fromMonth)) {
-        problems.push(`Proration band ${n} must start in a month numbered 1 to 12, got ${String(band.fromMonth)}.`);
+        add(`proration.${i}.fromMonth`, `Proration band ${n} must start in a month numbered 1 to 12, got ${String(band.fromMonth)}.`);
         bandsUsable = false;
       }
       if (band.charge !== 'full' && band.charge !== 'half')
-        problems.push(`Proration band ${n} must charge "full" or "half", got ${JSON.stringify(band.charge)}.`);
+        add(`proration.${i}.charge`, `Proration band ${n} must charge "full" or "half", got ${JSON.stringify(band.charge)}.`);
       if (typeof band.coversNextYear !== 'boolean')
-        problems.push(`Proration band ${n} must say whether it covers the next year (true or false).`);
+        add(`proration.${i}.coversNextYear`, `Proration band ${n} must say whether it covers the next year (true or false).`);
     });
     if (bandsUsable && proration.length > 0 && isMonth(yearStartMonth)) {
       if (proration[0].fromMonth !== yearStartMonth)
-        problems.push(
+        add(
+          'proration',
           `The first proration band must start in ${MONTHS[yearStartMonth - 1]}, the first month of the membership year.`,
         );
       const positions = proration.map((b) => positionInYear(b.fromMonth, yearStartMonth));
       if (positions.some((p, i) => i > 0 && p <= positions[i - 1]))
-        problems.push(
+        add(
+          'proration',
           `Proration bands must be listed in order through the membership year from ${MONTHS[yearStartMonth - 1]}, with no month twice.`,
         );
     }

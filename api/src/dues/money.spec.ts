@@ -24,6 +24,11 @@ describe('minorUnitDigits', () => {
     expect(() => minorUnitDigits('US')).toThrow(MoneyError);
     expect(() => minorUnitDigits('$')).toThrow(/three letters/);
   });
+
+  it('rejects three letters that are not an ISO 4217 currency (Intl alone would format them)', () => {
+    expect(() => minorUnitDigits('XYZ')).toThrow('"XYZ" is not a currency this system knows.');
+    expect(() => parseMoney('25', 'ABC')).toThrow(MoneyError);
+  });
 });
 
 describe('parseMoney', () => {

@@ -27,6 +27,13 @@ function currencyCode(currency: string): string {
   return code;
 }
 
+let known: Set<string> | undefined;
+/** The ISO 4217 codes the runtime's Intl data has (about 160 in use today). */
+function knownCurrencies(): Set<string> {
+  known ??= new Set(Intl.supportedValuesOf('currency'));
+  return known;
+}
+
 /**
  * Digits after the decimal point for a currency (USD 2, JPY 0, KWD 3), as Intl knows them. ECMA-402 takes
  * these from the ISO 4217 table for the currency alone, so they do not depend on the locale; the fixed
@@ -36,6 +43,8 @@ export function minorUnitDigits(currency: string): number {
   const code = currencyCode(currency);
   let digits = digitsCache.get(code);
   if (digits === undefined) {
+    // Intl formats any three letters (XYZ gets 2 decimals), so check the code against ISO 4217 first.
+    if (!knownCurrencies().has(code)) throw new MoneyError(`"${code}" is not a currency this system knows.`);
     try {
       digits = new Intl.NumberFormat('en-US', { style: 'currency', currency: code }).resolvedOptions().maximumFractionDigits;
     } catch {

@@ -103,6 +103,16 @@ const samples: { [N in EmailTemplateName]: EmailContexts[N] } = {
     dueDateText: 'Monday 15 March 2027',
     roundUrl: 'https://selvage.example/guilds/1/bees/7/rounds/2027-03',
   },
+  'dues-receipt': {
+    name: 'June Pettigrew',
+    guildName: 'Wrenfield Quilt Guild',
+    receiptNumber: '2026-0007',
+    totalText: '$30.00',
+    periodText: '1 January 2027 to 31 December 2027',
+    paidOnText: '2 December 2026',
+    methodText: 'Visa card ending 4242',
+    duesUrl: 'https://selvage.example/guilds/1/dues',
+  },
 };
 
 /** Messages that may reach someone who has nothing to do with Selvage yet. */
@@ -123,6 +133,7 @@ describe('renderEmail', () => {
       'bee-invitation',
       'block-nudge',
       'due-reminder',
+      'dues-receipt',
       'invitation',
       'password-reset',
       'round-assignment',
@@ -234,7 +245,7 @@ describe('renderEmail', () => {
 
   it('throws a clear error for an unknown template', () => {
     expect(() => renderEmail('newsletter' as EmailTemplateName, {})).toThrow(
-      'Unknown e-mail template "newsletter"; known ones: invitation, password-reset, welcome, bee-invitation, round-assignment, round-reminder, due-reminder, round-changed, block-nudge',
+      'Unknown e-mail template "newsletter"; known ones: invitation, password-reset, welcome, bee-invitation, round-assignment, round-reminder, due-reminder, round-changed, block-nudge, dues-receipt',
     );
     expect(() => renderEmail('__proto__' as EmailTemplateName, {})).toThrow(/Unknown e-mail template/);
   });

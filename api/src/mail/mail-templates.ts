@@ -56,6 +56,7 @@ export const EMAIL_TEMPLATE_REQUIRED_KEYS = {
   // `changes` may be empty.
   'round-changed': ['makerName', 'queenName', 'beeName', 'title', 'monthLabel', 'roundUrl'],
   'block-nudge': ['makerName', 'queenName', 'beeName', 'title', 'dueDateText', 'roundUrl'],
+  'dues-receipt': ['name', 'guildName', 'receiptNumber', 'totalText', 'periodText', 'paidOnText', 'methodText', 'duesUrl'],
 } as const satisfies Record<string, readonly string[]>;
 
 export type EmailTemplateName = keyof typeof EMAIL_TEMPLATE_REQUIRED_KEYS;
@@ -177,6 +178,22 @@ export interface BlockNudgeEmailContext {
   dueDateText: string;
   roundUrl: string;
 }
+/** Sent once a dues payment is recorded (card, cash or cheque), with the PDF receipt attached. */
+export interface DuesReceiptEmailContext {
+  name: string;
+  guildName: string;
+  /** e.g. "2026-0007". */
+  receiptNumber: string;
+  /** e.g. "$30.00". */
+  totalText: string;
+  /** e.g. "1 January 2027 to 31 December 2027". */
+  periodText: string;
+  /** e.g. "2 December 2026". */
+  paidOnText: string;
+  /** e.g. "Visa card ending 4242", "Cash", "Cheque no. 311". */
+  methodText: string;
+  duesUrl: string;
+}
 export interface EmailContexts {
   invitation: InvitationEmailContext;
   'password-reset': PasswordResetEmailContext;
@@ -187,6 +204,7 @@ export interface EmailContexts {
   'due-reminder': DueReminderEmailContext;
   'round-changed': RoundChangedEmailContext;
   'block-nudge': BlockNudgeEmailContext;
+  'dues-receipt': DuesReceiptEmailContext;
 }
 
 export interface RenderedEmail {

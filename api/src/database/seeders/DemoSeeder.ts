@@ -16,6 +16,7 @@ import { inchesToMm, parseInches, roundMm } from '../../common/units/inches';
 import { RoundBlock, type BlockStatus } from '../../rounds/round-block.entity';
 import { defaultSendAt } from '../../rounds/round-presenter';
 import { Round } from '../../rounds/round.entity';
+import { seedDemoDues } from './demo-dues';
 
 /** The month `offset` months after `month` (negative for before). */
 function monthsAround(month: string, offset: number): string {
@@ -55,6 +56,7 @@ interface DemoBee {
 interface DemoFile {
   password: string;
   guilds: {
+    key?: string;
     name: string;
     town: string;
     timeZone: string;
@@ -96,6 +98,7 @@ export class DemoSeeder extends Seeder {
       }
       await em.flush();
       for (const b of g.bees) await this.seedBee(em, guild, b, memberships);
+      if (g.key === 'wrenfield') await seedDemoDues(em, guild, memberships);
     }
     await em.flush();
   }

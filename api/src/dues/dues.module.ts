@@ -1,0 +1,13 @@
+import { Module } from '@nestjs/common';
+import { DuesLedgerService } from './dues-ledger.service';
+import { DuesController } from './dues.controller';
+import { DuesService } from './dues.service';
+import { PaymentsGateway } from './payments-gateway';
+import { PaymentsWebhookController } from './payments-webhook.controller';
+
+@Module({
+  controllers: [DuesController, PaymentsWebhookController],
+  providers: [DuesService, DuesLedgerService, PaymentsGateway],
+  exports: [DuesService, DuesLedgerService, PaymentsGateway],
+})
+export class DuesModule {}
