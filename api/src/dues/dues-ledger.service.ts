@@ -177,8 +177,9 @@ export class DuesLedgerService {
       limit: 5000,
     });
     const payments = invoices.length ? await this.em.find(DuesPayment, { invoice: { $in: invoices.map((r) => r.id) } }) : [];
+    const paymentOf = new Map(payments.map((x) => [x.invoice.id, x]));
     const rows = invoices.map((i) => {
-      const p = payments.find((x) => x.invoice.id === i.id);
+      const p = paymentOf.get(i.id);
       const gross = p?.amountCents ?? 0;
       const fee = p?.feeCents ?? 0;
       const refunded = p?.refundedCents ?? 0;

@@ -5,6 +5,7 @@ import { CurrentMembership } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { Membership } from '../guilds/membership.entity';
 import { DuesLedgerService } from './dues-ledger.service';
+import { DuesReportService } from './dues-report.service';
 import { DuesService } from './dues.service';
 import {
   CheckoutDto,
@@ -37,7 +38,32 @@ export class DuesController {
   constructor(
     private readonly dues: DuesService,
     private readonly books: DuesLedgerService,
+    private readonly reports: DuesReportService,
   ) {}
+
+  /** The year-end report: money in by month and plan, fees, refunds, net; members by status. */
+  @Roles('treasurer')
+  @Get('report')
+  report(@CurrentMembership() me: Membership, @Query('year') year?: string) {
+    return this.reports.report(me, year);
+  }
+
+  @Roles('treasurer')
+  @Get('report.csv')
+  async reportCsv(@CurrentMembership() me: Membership, @Res() res: Response, @Query('year') year?: string) {
+    const { filename, csv } = await this.reports.reportCsv(me, year);
+    sendCsv(res, filename, csv);
+  }
+
+  @Roles('treasurer')
+  @Get('report.pdf')
+  async reportPdf(@CurrentMembership() me: Membership, @Res() res: Response, @Query('year') year?: string) {
+    const { filename, pdf } = await this.reports.reportPdf(me, year);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${filename}"`);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(pdf);
+  }
 
   @Get('settings')
   settings(@CurrentMembership() me: Membership) {

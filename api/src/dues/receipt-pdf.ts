@@ -93,7 +93,7 @@ function fonts(): Record<FontName, Buffer> {
  * (payments render one inside their transaction). Each document still makes its own subset.
  */
 let parsedFonts: Partial<Record<FontName, unknown>> = {};
-function registerFonts(doc: PDFKit.PDFDocument): void {
+export function registerFonts(doc: PDFKit.PDFDocument): void {
   const files = fonts();
   for (const name of Object.keys(FONT_FILES) as FontName[]) {
     const parsed = parsedFonts[name];
