@@ -3,6 +3,7 @@ import { Outlet, useNavigate } from 'react-router-dom';
 import { AppShell } from '@/components/layouts/app-shell';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { paths } from '@/config/paths';
+import { isDuesOfficer } from '@/config/roles';
 import { useDashboard } from '@/features/dashboard/api/get-dashboard';
 import { useMeta } from '@/features/meta/api/get-meta';
 import { useSignOut, useUser } from '@/lib/auth';
@@ -20,6 +21,10 @@ export function AppLayout() {
     ...guilds.flatMap((g) => [
       { to: paths.members.getHref(g.id), label: guilds.length === 1 ? 'Members' : `${g.name} members` },
       { to: paths.bees.getHref(g.id), label: guilds.length === 1 ? 'Bees' : `${g.name} bees` },
+      { to: paths.dues.getHref(g.id), label: guilds.length === 1 ? 'Dues' : `${g.name} dues` },
+      ...(isDuesOfficer(g.roles)
+        ? [{ to: paths.treasurer.getHref(g.id), label: guilds.length === 1 ? 'Treasurer' : `${g.name} treasurer` }]
+        : []),
     ]),
     { to: paths.layoutPlanner.getHref(), label: 'Layout planner' },
   ];

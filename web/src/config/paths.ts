@@ -2,6 +2,9 @@ function withRedirect(path: string, redirectTo?: string | null): string {
   return redirectTo ? `${path}?redirectTo=${encodeURIComponent(redirectTo)}` : path;
 }
 
+export const TREASURER_SECTIONS = ['ledger', 'roster', 'record', 'report', 'settings', 'audit'] as const;
+export type TreasurerSection = (typeof TREASURER_SECTIONS)[number];
+
 export const paths = {
   home: {
     path: '/',
@@ -40,6 +43,22 @@ export const paths = {
     path: '/guilds/:guildId/bees/:beeId/rounds/:month',
     getHref: (guildId: string | number, beeId: string | number, month: string) =>
       `/guilds/${encodeURIComponent(String(guildId))}/bees/${encodeURIComponent(String(beeId))}/rounds/${encodeURIComponent(month)}`,
+  },
+  dues: {
+    path: '/guilds/:guildId/dues',
+    getHref: (guildId: string | number, options: { cancelled?: boolean } = {}) =>
+      `/guilds/${encodeURIComponent(String(guildId))}/dues${options.cancelled ? '?cancelled=1' : ''}`,
+  },
+  duesReturn: {
+    path: '/guilds/:guildId/dues/return',
+    getHref: (guildId: string | number, invoiceId: string | number) =>
+      `/guilds/${encodeURIComponent(String(guildId))}/dues/return?invoice=${encodeURIComponent(String(invoiceId))}`,
+  },
+  treasurer: {
+    path: '/guilds/:guildId/treasurer',
+    /** No section is the first one (the ledger); `search` is a query string for it, e.g. "?member=12". */
+    getHref: (guildId: string | number, section?: TreasurerSection, search = '') =>
+      `/guilds/${encodeURIComponent(String(guildId))}/treasurer${section ? `/${section}` : ''}${search}`,
   },
   layoutPlanner: {
     path: '/layout-planner',

@@ -16,6 +16,11 @@ export function roleLabel(role: string): string {
 
 export const OFFICER_INVITE_ROLES: readonly Role[] = ['admin', 'membership_chair'];
 
+/** Who keeps the dues books: ledger, roster, refunds, settings and plans. */
+export const DUES_OFFICER_ROLES: readonly Role[] = ['admin', 'treasurer'];
+
+export const isDuesOfficer = (roles: readonly string[] | undefined) => Boolean(roles?.some((r) => DUES_OFFICER_ROLES.includes(r as Role)));
+
 export function statusLabel(status: string | null | undefined): string {
   if (!status) return '';
   const s = status.replace(/_/g, ' ');

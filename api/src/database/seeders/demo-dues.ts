@@ -132,8 +132,10 @@ export async function seedDemoDues(em: EntityManager, guild: Guild, members: Map
     { who: 'priya', on: d(Y - 2, '12-15'), method: 'card' },
     { who: 'priya', on: d(Y, '02-20'), method: 'card', refund: { cents: 500, on: d(Y, '02-24'), reason: 'Late fee waived: she was in hospital over New Year.' } },
     { who: 'june', on: d(Y - 2, '12-12'), method: 'cheque' },
-    { who: 'june', on: d(Y - 1, '12-03'), method: 'card' },
+    // June has not renewed this year (in grace during January, lapsed after), so on any date the demo
+    // has a member who owes and can pay online.
     { who: 'agnes', on: d(Y - 2, '12-20'), method: 'cash' },
+    { who: 'agnes', on: d(Y - 1, '12-03'), method: 'card' },
     { who: 'clementine', on: d(Y - 2, '12-18'), method: 'cash' },
     { who: 'clementine', on: d(Y - 1, '12-14'), method: 'cash' },
     { who: 'winifred', on: d(Y - 2, '12-08'), method: 'cheque' },

@@ -4,15 +4,14 @@ import Row from 'react-bootstrap/Row';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { usePageTitle } from '@/components/ui/page-title';
+import { paths } from '@/config/paths';
 import { useDashboard } from '@/features/dashboard/api/get-dashboard';
 import { GuildCard } from '@/features/dashboard/components/guild-card';
 import { OwedBlocks } from '@/features/dashboard/components/owed-blocks';
+import { DuesCard } from '@/features/dues/components/dues-card';
 import { useUser } from '@/lib/auth';
 
-const comingSoon = [
-  { title: 'Dues — coming soon', text: 'Paying and tracking your guild dues will appear here in a later release.' },
-  { title: 'Quilt show — coming soon', text: 'Entering quilts and volunteering for the show will appear here.' },
-];
+const comingSoon = [{ title: 'Quilt show — coming soon', text: 'Entering quilts and volunteering for the show will appear here.' }];
 
 export default function DashboardRoute() {
   usePageTitle('Dashboard');
@@ -47,6 +46,26 @@ export default function DashboardRoute() {
           </Row>
         )}
       </section>
+
+      {dashboard.data && dashboard.data.guilds.length > 0 && (
+        <section aria-labelledby="dues-heading" className="mb-5">
+          <h2 id="dues-heading" className="mb-3">
+            Dues
+          </h2>
+          <Row xs={1} md={2} xl={3} className="g-3">
+            {dashboard.data.guilds.map((guild) => (
+              <Col key={guild.id}>
+                <DuesCard
+                  guildId={String(guild.id)}
+                  guildName={guild.name}
+                  href={paths.dues.getHref(guild.id)}
+                  showGuildName={dashboard.data.guilds.length > 1}
+                />
+              </Col>
+            ))}
+          </Row>
+        </section>
+      )}
 
       <section aria-labelledby="owed-heading" className="mb-5">
         <h2 id="owed-heading" className="mb-3">
