@@ -113,6 +113,33 @@ const samples: { [N in EmailTemplateName]: EmailContexts[N] } = {
     methodText: 'Visa card ending 4242',
     duesUrl: 'https://selvage.example/guilds/1/dues',
   },
+  'dues-renewal-soon': {
+    name: 'June Pettigrew',
+    guildName: 'Wrenfield Quilt Guild',
+    yearLabel: '2028',
+    totalText: '$30.00',
+    renewByText: '1 January 2028',
+    paidThroughText: '31 December 2027',
+    duesUrl: 'https://selvage.example/guilds/1/dues',
+    lines: [{ label: '2028 dues — Regular', amountText: '$30.00' }],
+    graceEndsOnText: '1 February 2028',
+    lateFeeText: '$5.00',
+    treasurerName: 'Doreen Achterberg',
+  },
+  'dues-lapsed': {
+    name: 'Agnes Hollowell',
+    guildName: 'Wrenfield Quilt Guild',
+    yearLabel: '2028',
+    totalText: '$35.00',
+    lapsedOnText: '2 February 2028',
+    paidThroughText: '31 December 2027',
+    duesUrl: 'https://selvage.example/guilds/1/dues',
+    lines: [
+      { label: '2028 dues — Regular', amountText: '$30.00' },
+      { label: 'Late fee (renewed after 1 February 2028)', amountText: '$5.00' },
+    ],
+    treasurerName: 'Doreen Achterberg',
+  },
 };
 
 /** Messages that may reach someone who has nothing to do with Selvage yet. */
@@ -133,7 +160,9 @@ describe('renderEmail', () => {
       'bee-invitation',
       'block-nudge',
       'due-reminder',
+      'dues-lapsed',
       'dues-receipt',
+      'dues-renewal-soon',
       'invitation',
       'password-reset',
       'round-assignment',
@@ -245,7 +274,7 @@ describe('renderEmail', () => {
 
   it('throws a clear error for an unknown template', () => {
     expect(() => renderEmail('newsletter' as EmailTemplateName, {})).toThrow(
-      'Unknown e-mail template "newsletter"; known ones: invitation, password-reset, welcome, bee-invitation, round-assignment, round-reminder, due-reminder, round-changed, block-nudge, dues-receipt',
+      'Unknown e-mail template "newsletter"; known ones: invitation, password-reset, welcome, bee-invitation, round-assignment, round-reminder, due-reminder, round-changed, block-nudge, dues-receipt, dues-renewal-soon, dues-lapsed',
     );
     expect(() => renderEmail('__proto__' as EmailTemplateName, {})).toThrow(/Unknown e-mail template/);
   });
@@ -467,5 +496,38 @@ describe('bee mail', () => {
       expect(part).toContain('looking forward to your');
       expect(part).not.toMatch(/\b(late|overdue|failed|must)\b/i);
     }
+  });
+});
+
+describe('dues reminders', () => {
+  it('dues-renewal-soon says what she owes, by when, and how to pay, without scolding', () => {
+    const r = renderEmail('dues-renewal-soon', samples['dues-renewal-soon']);
+    expect(r.subject).toBe('Your Wrenfield Quilt Guild dues for 2028: $30.00 by 1 January 2028');
+    for (const part of [r.html, r.text]) {
+      expect(part).toContain('paid through 31 December 2027');
+      expect(part).toContain('2028 dues — Regular');
+      expect(part).toContain('Doreen Achterberg, the guild');
+      expect(part).toContain('grace period until 1 February 2028; after that, renewing adds a $5.00 late fee');
+      expect(part).not.toMatch(/\b(overdue|failed|must|unfortunately)\b/i);
+    }
+    const plain = renderEmail('dues-renewal-soon', { ...samples['dues-renewal-soon'], graceEndsOnText: '', lateFeeText: '', treasurerName: '', lines: [] });
+    expect(plain.text).not.toContain('grace period');
+    expect(plain.text).toContain("Or give cash or a cheque to the guild's treasurer.");
+    const household = renderEmail('dues-renewal-soon', { ...samples['dues-renewal-soon'], householdName: 'Mill Row' });
+    expect(household.text).toContain('everyone in the Mill Row household, so one payment is enough');
+  });
+
+  it('dues-lapsed lists what renewing costs now and is kind about it', () => {
+    const r = renderEmail('dues-lapsed', samples['dues-lapsed']);
+    expect(r.subject).toBe('Your Wrenfield Quilt Guild membership has lapsed: here is how to renew');
+    for (const part of [r.html, r.text]) {
+      expect(part).toContain('lapsed on');
+      expect(part).toContain('2 February 2028');
+      expect(part).toContain('$35.00');
+      expect(part).toContain('Late fee (renewed after 1 February 2028)');
+      expect(part).toContain('welcome back any time');
+      expect(part).not.toMatch(/\b(overdue|failed|must|unfortunately)\b/i);
+    }
+    expect(r.text).toContain('Late fee (renewed after 1 February 2028): $5.00');
   });
 });

@@ -57,6 +57,10 @@ export const EMAIL_TEMPLATE_REQUIRED_KEYS = {
   'round-changed': ['makerName', 'queenName', 'beeName', 'title', 'monthLabel', 'roundUrl'],
   'block-nudge': ['makerName', 'queenName', 'beeName', 'title', 'dueDateText', 'roundUrl'],
   'dues-receipt': ['name', 'guildName', 'receiptNumber', 'totalText', 'periodText', 'paidOnText', 'methodText', 'duesUrl'],
+  // Optional: lines, graceEndsOnText, lateFeeText, householdName, treasurerName.
+  'dues-renewal-soon': ['name', 'guildName', 'yearLabel', 'totalText', 'renewByText', 'paidThroughText', 'duesUrl'],
+  // Optional: lines, householdName, treasurerName.
+  'dues-lapsed': ['name', 'guildName', 'yearLabel', 'totalText', 'lapsedOnText', 'paidThroughText', 'duesUrl'],
 } as const satisfies Record<string, readonly string[]>;
 
 export type EmailTemplateName = keyof typeof EMAIL_TEMPLATE_REQUIRED_KEYS;
@@ -194,6 +198,45 @@ export interface DuesReceiptEmailContext {
   methodText: string;
   duesUrl: string;
 }
+/** One line of what a member owes, e.g. { label: "2028 dues — Regular", amountText: "$30.00" }. */
+export interface DuesLineText {
+  label: string;
+  amountText: string;
+}
+/** About two weeks before a member's paid time runs out (the dues reminders job). */
+export interface DuesRenewalSoonEmailContext {
+  name: string;
+  guildName: string;
+  /** e.g. "2028" or "2027–28". */
+  yearLabel: string;
+  /** e.g. "$30.00". */
+  totalText: string;
+  /** Her last day in good standing, e.g. "1 January 2028". */
+  renewByText: string;
+  paidThroughText: string;
+  duesUrl: string;
+  lines?: DuesLineText[];
+  /** The last day of grace after renewByText; empty when the guild has none. */
+  graceEndsOnText?: string;
+  /** e.g. "$5.00"; empty when there is no late fee. */
+  lateFeeText?: string;
+  householdName?: string;
+  treasurerName?: string;
+}
+/** Once, when a member's membership lapses, with what renewing costs now. */
+export interface DuesLapsedEmailContext {
+  name: string;
+  guildName: string;
+  yearLabel: string;
+  totalText: string;
+  /** The first day she was lapsed, e.g. "2 February 2028". */
+  lapsedOnText: string;
+  paidThroughText: string;
+  duesUrl: string;
+  lines?: DuesLineText[];
+  householdName?: string;
+  treasurerName?: string;
+}
 export interface EmailContexts {
   invitation: InvitationEmailContext;
   'password-reset': PasswordResetEmailContext;
@@ -205,6 +248,8 @@ export interface EmailContexts {
   'round-changed': RoundChangedEmailContext;
   'block-nudge': BlockNudgeEmailContext;
   'dues-receipt': DuesReceiptEmailContext;
+  'dues-renewal-soon': DuesRenewalSoonEmailContext;
+  'dues-lapsed': DuesLapsedEmailContext;
 }
 
 export interface RenderedEmail {
