@@ -15,7 +15,8 @@ export default defineConfig({
   extensions: [Migrator, SeedManager],
   timezone: '+00:00',
   forceUtcTimezone: true,
-  pool: { min: 0, max: 10 },
+  // A couple of connections kept open: a burst of requests on a cold api otherwise waits on new sockets.
+  pool: { min: 2, max: 10 },
   debug: false,
   allowGlobalContext: false,
   migrations: {

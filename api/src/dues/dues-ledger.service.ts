@@ -1,4 +1,3 @@
-import type { FilterQuery } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import {
   BadRequestException,
@@ -96,6 +95,27 @@ function ageRange(plan: DuesPlan): string {
  * return page, the treasurer) it is settled by markPaid in one transaction, with the member's
  * standing row and the invoice row locked in that order.
  */
+interface LedgerRow {
+  id: number;
+  membership_id: number;
+  member_name: string;
+  plan_name: string;
+  year_label: string;
+  created_at: Date | string;
+  status: InvoiceStatus;
+  method: PaymentMethod | null;
+  total_cents: number;
+  currency: string;
+  paid_on: string | null;
+  receipt_number: string | null;
+  payment_id: number | null;
+  amount_cents: number | null;
+  fee_cents: number | null;
+  refunded_cents: number | null;
+  payment_intent_id: string | null;
+  cheque_number: string | null;
+}
+
 @Injectable()
 export class DuesLedgerService {
   private readonly logger = new Logger(DuesLedgerService.name);
@@ -164,43 +184,60 @@ export class DuesLedgerService {
     return this.invoiceView(invoice);
   }
 
-  /** The treasurer's books: every invoice (filtered), what came in, the fees, refunds and net. */
+  /**
+   * The treasurer's books: every invoice (filtered), what came in, the fees, refunds and net. One plain
+   * join rather than entities: two years of a guild's payments is a thousand rows, and building entity
+   * objects for them took most of the request's time.
+   */
   async ledger(me: Membership, query: LedgerQueryDto) {
-    const where: FilterQuery<DuesInvoice> = { guild: me.guild.id };
-    if (query.year) where.yearLabel = query.year;
-    if (query.planId) where.plan = query.planId;
-    if (query.status) where.status = query.status;
-    if (query.method) where.method = query.method;
-    const invoices = await this.em.find(DuesInvoice, where, {
-      populate: ['guild', 'membership.user'],
-      orderBy: { createdAt: 'desc', id: 'desc' },
-      limit: 5000,
-    });
-    const payments = invoices.length ? await this.em.find(DuesPayment, { invoice: { $in: invoices.map((r) => r.id) } }) : [];
-    const paymentOf = new Map(payments.map((x) => [x.invoice.id, x]));
-    const rows = invoices.map((i) => {
-      const p = paymentOf.get(i.id);
-      const gross = p?.amountCents ?? 0;
-      const fee = p?.feeCents ?? 0;
-      const refunded = p?.refundedCents ?? 0;
+    const filters: string[] = [];
+    const params: unknown[] = [];
+    const where = (sql: string, value: unknown) => {
+      filters.push(sql);
+      params.push(value);
+    };
+    where('i.guild_id = ?', me.guild.id);
+    if (query.year) where('i.year_label = ?', query.year);
+    if (query.planId) where('i.plan_id = ?', query.planId);
+    if (query.status) where('i.status = ?', query.status);
+    if (query.method) where('i.method = ?', query.method);
+    const found = await this.em.getConnection().execute<LedgerRow[]>(
+      `SELECT i.id, i.membership_id, u.name AS member_name, i.plan_name, i.year_label, i.created_at, i.status, i.method,
+              i.total_cents, i.currency, DATE_FORMAT(i.paid_on, '%Y-%m-%d') AS paid_on, i.receipt_number,
+              p.id AS payment_id, p.amount_cents, p.fee_cents, p.refunded_cents, p.payment_intent_id, p.cheque_number
+         FROM dues_invoices i
+         JOIN memberships m ON m.id = i.membership_id
+         JOIN users u ON u.id = m.user_id
+         LEFT JOIN dues_payments p ON p.invoice_id = i.id
+        WHERE ${filters.join(' AND ')}
+        ORDER BY i.created_at DESC, i.id DESC
+        LIMIT 5000`,
+      params,
+    );
+    const zone = me.guild.timeZone;
+    const rows = found.map((r) => {
+      const gross = Number(r.amount_cents ?? 0);
+      const fee = Number(r.fee_cents ?? 0);
+      const refunded = Number(r.refunded_cents ?? 0);
+      const createdAt = r.created_at instanceof Date ? r.created_at : new Date(`${String(r.created_at).replace(' ', 'T')}Z`);
       return {
-        invoiceId: i.id,
-        membershipId: i.membership.id,
-        memberName: i.membership.user.name,
-        planName: i.planName,
-        label: i.yearLabel,
-        issuedOn: todayIn(i.guild.timeZone, i.createdAt),
-        status: i.status,
-        method: i.method ?? null,
-        totalCents: i.totalCents,
+        invoiceId: r.id,
+        membershipId: r.membership_id,
+        memberName: r.member_name,
+        planName: r.plan_name,
+        label: r.year_label,
+        issuedOn: todayIn(zone, createdAt),
+        status: r.status,
+        method: r.method ?? null,
+        totalCents: Number(r.total_cents),
         grossCents: gross,
         feeCents: fee,
         refundedCents: refunded,
         netCents: gross - fee - refunded,
-        currency: i.currency,
-        paidOn: i.paidOn ?? null,
-        receiptNumber: i.receiptNumber ?? null,
-        reference: p ? (p.paymentIntentId ?? (p.chequeNumber ? `Cheque no. ${p.chequeNumber}` : null)) : null,
+        currency: r.currency,
+        paidOn: r.paid_on ?? null,
+        receiptNumber: r.receipt_number ?? null,
+        reference: r.payment_id ? (r.payment_intent_id ?? (r.cheque_number ? `Cheque no. ${r.cheque_number}` : null)) : null,
       };
     });
     const sum = (k: 'grossCents' | 'feeCents' | 'refundedCents' | 'netCents') => rows.reduce((t, r) => t + r[k], 0);
