@@ -8,24 +8,15 @@
  *   PAYMENTS_FAKE_PUBLIC_URL       base URL browsers reach the fake at (optional; default http://127.0.0.1:<port>)
  */
 import * as path from 'node:path';
+import { portFromEnv, runFake } from '../run-fake';
 import { DEFAULT_PORT, startPaymentsFake } from './payments-fake';
-
-function portFromEnv(name: string, fallback: number): number {
-  const raw = process.env[name];
-  if (raw === undefined || raw.trim() === '') return fallback;
-  const port = Number(raw);
-  if (!Number.isInteger(port) || port < 0 || port > 65535) {
-    throw new Error(`${name} must be a port number from 0 to 65535, got "${raw}"`);
-  }
-  return port;
-}
 
 function optionalEnv(name: string): string | null {
   const raw = process.env[name];
   return raw === undefined || raw.trim() === '' ? null : raw.trim();
 }
 
-async function main(): Promise<void> {
+async function main() {
   const dataDir = path.resolve(process.cwd(), process.env.PAYMENTS_FAKE_DIR || path.join('.data', 'payments'));
   const webhookUrl = optionalEnv('PAYMENTS_FAKE_WEBHOOK_URL');
   const webhookSecret = optionalEnv('PAYMENTS_FAKE_WEBHOOK_SECRET');
@@ -44,27 +35,7 @@ async function main(): Promise<void> {
       (webhookUrl ? `events to ${webhookUrl}` : 'no webhook endpoint (events only kept)') +
       `, storing in ${dataDir}`,
   );
-
-  let stopping = false;
-  const stop = (signal: NodeJS.Signals): void => {
-    if (stopping) return;
-    stopping = true;
-    fake.close().then(
-      () => {
-        console.log(`payments fake: stopped (${signal})`);
-        process.exit(0);
-      },
-      (err: unknown) => {
-        console.error('payments fake: error while stopping', err);
-        process.exit(1);
-      },
-    );
-  };
-  process.on('SIGINT', stop);
-  process.on('SIGTERM', stop);
+  return fake;
 }
 
-main().catch((err: unknown) => {
-  console.error('payments fake: could not start:', err instanceof Error ? err.message : err);
-  process.exit(1);
-});
+runFake('payments fake', main);
