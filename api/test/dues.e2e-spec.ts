@@ -149,6 +149,13 @@ describe('dues: online payment through the payments fake and its signed events (
     const me = await member.get(`${url}/me`);
     expect(me.status).toBe(200);
     expect(me.body).toMatchObject({ status: 'lapsed', paidThrough: null, plan: null, quote: null, openInvoice: null, history: [] });
+    // Each plan she could choose, quoted as a joiner: something to pay, never a late fee.
+    const quoted = me.body.quotes as { planId: number; quote: { totalCents: number; lines: { kind: string }[] } }[];
+    expect(quoted.map((q) => q.planId).sort()).toEqual([plans.Household, plans.Junior, plans.Regular].sort());
+    for (const { quote } of quoted) {
+      expect(quote.totalCents).toBeGreaterThan(0);
+      expect(quote.lines.map((l) => l.kind)).not.toContain('late-fee');
+    }
   });
 
   it('refuses plans she cannot pay for, with a reason, and records nothing', async () => {

@@ -269,6 +269,13 @@ export class DuesService {
       { orderBy: { createdAt: 'desc', id: 'desc' } },
     );
     const open = invoices.find((i) => i.status === 'open');
+    // What each plan she could pay for would cost her today, so the page can show the exact lines
+    // whichever she picks (the payment makes the same quote again).
+    const choices = await this.em.find(
+      DuesPlan,
+      { guild: guild.id, active: true, kind: { $in: ['standard', 'household'] } },
+      { orderBy: { name: 'asc' } },
+    );
     return {
       status,
       statusEndsOn,
@@ -276,6 +283,7 @@ export class DuesService {
       plan: plan ? planView(plan) : null,
       household,
       quote: plan ? this.quoteFor(plan, settings, today, paidThrough) : null,
+      quotes: choices.map((p) => ({ planId: p.id, quote: this.quoteFor(p, settings, today, paidThrough) })),
       openInvoice: open ? { id: open.id } : null,
       history: invoices.map((i) => ({
         invoiceId: i.id,

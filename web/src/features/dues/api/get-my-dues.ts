@@ -39,6 +39,8 @@ export type MyDues = {
   plan: DuesPlan | null;
   household: { id: number; name: string; members: string[] } | null;
   quote: DuesQuote | null;
+  /** What each plan she may choose would cost her today. */
+  quotes?: { planId: number; quote: DuesQuote | null }[];
   openInvoice: { id: number } | null;
   history: PaymentRecord[];
 };

@@ -110,6 +110,21 @@ describe('PayDues', () => {
     expect(requestBody(fetchMock, CHECKOUT)).toEqual({ planId: 4 });
   });
 
+  it('shows the exact lines for another plan she picks when the api has quoted it', async () => {
+    const householdQuote = {
+      lines: [{ kind: 'dues' as const, label: '2026–27 dues — Household', amountCents: 6500 }],
+      totalCents: 6500,
+      currency: 'USD',
+      coversFrom: '2026-09-01',
+      coversThrough: '2027-08-31',
+      note: null,
+    };
+    const { user } = renderPay({ ...lapsed, quotes: [{ planId: 3, quote: lapsed.quote }, { planId: 4, quote: householdQuote }] }, [standard, household]);
+    await user.click(screen.getByRole('radio', { name: /^Household/ }));
+    expect(screen.getAllByRole('row').map((r) => r.textContent)).toEqual(['ItemAmount', '2026–27 dues — Household$65.00', 'To pay$65.00']);
+    expect(screen.getByRole('button', { name: 'Pay $65.00 by card' })).toBeEnabled();
+  });
+
   it('says so when there is nothing to pay, with no button', () => {
     renderPay(
       {

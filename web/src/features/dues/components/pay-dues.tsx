@@ -28,8 +28,10 @@ export function PayDues({ guildId, dues, plans, currency }: PayDuesProps) {
   const choices = payablePlans(plans);
   const ownPlanId = dues.plan?.id ?? null;
   const [planId, setPlanId] = useState<number | null>(() => firstChoice(dues, choices));
-  // Selvage works out her amount for the plan she is on; for another plan the payment page shows it.
-  const otherPlan = planId !== null && (planId !== ownPlanId || !dues.quote);
+  // The exact amount for the plan she picks; when the api has none, the payment page shows it.
+  const exact =
+    planId === null ? null : planId === ownPlanId && dues.quote ? dues.quote : (dues.quotes?.find((q) => q.planId === planId)?.quote ?? null);
+  const otherPlan = planId !== null && exact === null;
   const chosen = choices.find((p) => p.id === planId) ?? null;
   const checkout = useStartCheckout(guildId);
   const leaving = useRef(false);
@@ -37,7 +39,7 @@ export function PayDues({ guildId, dues, plans, currency }: PayDuesProps) {
   const legendId = useId();
   const coversId = useId();
 
-  const quote = otherPlan ? null : dues.quote;
+  const quote = exact;
   const busy = checkout.isPending || redirecting;
   const explained = (otherPlan && chosen !== null) || Boolean(quote?.coversFrom && quote.coversThrough);
   // Paid up on her own plan: nothing to choose until renewal opens.
