@@ -436,6 +436,9 @@ describe('dues: online payment through the payments fake and its signed events (
     const inv = await treasurer.get(`${url}/invoices/${invoiceId}`);
     expect(inv.body).toMatchObject({ totalCents: 3000, lines: [expect.objectContaining({ amountCents: 3000 })] });
     expect((await treasurer.patch(`${url}/plans/999999`).send({ yearlyCents: 1 })).status).toBe(404);
+    const bad = await treasurer.patch(`${url}/plans/${plans.Regular}`).send({ yearlyCents: 12.5, name: '', minAge: -1 });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.errors).sort()).toEqual(['minAge', 'name', 'yearlyCents']);
   });
 
   it('keeps an append-only audit log of every money event, newest first', async () => {

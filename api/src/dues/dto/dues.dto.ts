@@ -1,4 +1,4 @@
-import { ApiProperty } from '@nestjs/swagger';
+import { ApiProperty, PartialType } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -136,43 +136,8 @@ export class CreatePlanDto {
   active?: boolean;
 }
 
-export class UpdatePlanDto {
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @IsString({ message: 'Give the plan a name.' })
-  @IsNotEmpty({ message: 'Give the plan a name.' })
-  @MaxLength(80, { message: 'Use at most 80 characters.' })
-  name?: string;
-
-  @ApiProperty({ required: false, enum: PLAN_KINDS })
-  @IsOptional()
-  @IsIn([...PLAN_KINDS], { message: 'Choose standard, household, lifetime or honorary.' })
-  kind?: PlanKind;
-
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @apply(cents('the yearly dues', 0))
-  yearlyCents?: number;
-
-  @ApiProperty({ required: false, nullable: true })
-  @IsOptional()
-  @IsInt({ message: 'Enter an age in whole years.' })
-  @Min(0, { message: 'Enter an age in whole years.' })
-  @Max(150, { message: 'Enter an age in whole years.' })
-  minAge?: number | null;
-
-  @ApiProperty({ required: false, nullable: true })
-  @IsOptional()
-  @IsInt({ message: 'Enter an age in whole years.' })
-  @Min(0, { message: 'Enter an age in whole years.' })
-  @Max(150, { message: 'Enter an age in whole years.' })
-  maxAge?: number | null;
-
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @IsBoolean({ message: 'Say whether members can choose this plan.' })
-  active?: boolean;
-}
+/** Any of the plan's fields; each is checked as when the plan was made. */
+export class UpdatePlanDto extends PartialType(CreatePlanDto) {}
 
 export class CheckoutDto {
   @ApiProperty()
