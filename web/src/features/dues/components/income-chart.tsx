@@ -34,7 +34,7 @@ export function IncomeChart({ months, currency }: IncomeChartProps) {
               tick={{ fontSize: 14, fill: '#333' }}
               tickCount={3}
             />
-            <YAxis type="category" dataKey="month" width={52} tick={{ fontSize: 16, fill: '#222' }} />
+            <YAxis type="category" dataKey="month" width={92} tick={{ fontSize: 16, fill: '#222' }} interval={0} />
             <Bar dataKey="net" fill="#1d5c63" isAnimationActive={false} barSize={20} />
           </BarChart>
         </ResponsiveContainer>
