@@ -32,6 +32,7 @@ import { join } from 'node:path';
 import seedrandom from 'seedrandom';
 import Stripe from 'stripe';
 import { startPaymentsFake } from '../fakes/payments/payments-fake';
+import { WRENFIELD_DUES } from '../src/database/seeders/demo-dues';
 
 const base = process.env.BENCH_URL ?? 'http://127.0.0.1:3000';
 const seconds = Number(process.env.BENCH_SECONDS ?? 10);
@@ -188,18 +189,11 @@ async function main() {
   const seedStart = performance.now();
   const em2 = orm.em.fork() as EntityManager;
   const guild = em2.create(Guild, { name: `Harebell Hollow Quilters (bench ${tag})`, town: 'Harebell Hollow', timeZone: 'America/Chicago', currency: 'USD' });
+  // The demo guild's rules, so the bench quotes what the demo would.
   em2.create(DuesSettingsRecord, {
     guild,
-    yearStartMonth: 1,
-    dueMonth: 1,
-    dueDay: 1,
-    graceDays: 31,
-    lateFeeCents: 500,
-    earlyRenewalDays: 60,
-    proration: [
-      { fromMonth: 1, charge: 'full', coversNextYear: false },
-      { fromMonth: 7, charge: 'half', coversNextYear: false },
-    ],
+    ...WRENFIELD_DUES,
+    earlyRenewalDays: WRENFIELD_DUES.earlyRenewalDays!,
   });
   const plans = {
     regular: em2.create(DuesPlan, { guild, name: 'Regular', kind: 'standard', yearlyCents: 3500 }),

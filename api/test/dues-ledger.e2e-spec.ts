@@ -1,7 +1,3 @@
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { parse } from 'csv-parse/sync';
 import { DuesInvoice } from '../src/dues/dues-invoice.entity';
 import { DuesRefund } from '../src/dues/dues-refund.entity';
@@ -18,21 +14,13 @@ import {
   waitForMail,
   type PaymentsHarness,
   type TestApp,
+  pdfText,
 } from './helpers';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
 
 const SETTINGS = { yearStartMonth: 1, dueMonth: 1, dueDay: 1, graceDays: 31, lateFeeCents: 500, earlyRenewalDays: 0, proration: [] };
 
-function pdfText(pdf: Buffer): string {
-  const dir = mkdtempSync(join(tmpdir(), 'selvage-receipt-'));
-  try {
-    writeFileSync(join(dir, 'r.pdf'), pdf);
-    return execFileSync('pdftotext', ['-layout', join(dir, 'r.pdf'), '-'], { encoding: 'utf8' });
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
-}
 
 describe("dues: the treasurer's ledger — cash, cheques, households, receipt numbers (real MariaDB)", () => {
   let h: PaymentsHarness;

@@ -1,7 +1,3 @@
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import Stripe from 'stripe';
 import request from 'supertest';
 import { DuesInvoice } from '../src/dues/dues-invoice.entity';
@@ -21,6 +17,7 @@ import {
   waitForMail,
   type PaymentsHarness,
   type TestApp,
+  pdfText,
 } from './helpers';
 
 type Agent = Awaited<ReturnType<typeof signIn>>;
@@ -40,15 +37,6 @@ export const TEST_SETTINGS = {
 
 const sessionOf = (url: string) => url.split('/pay/')[1];
 
-function pdfText(pdf: Buffer): string {
-  const dir = mkdtempSync(join(tmpdir(), 'selvage-receipt-'));
-  try {
-    writeFileSync(join(dir, 'r.pdf'), pdf);
-    return execFileSync('pdftotext', ['-layout', join(dir, 'r.pdf'), '-'], { encoding: 'utf8' });
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
-}
 
 describe('dues: online payment through the payments fake and its signed events (real MariaDB)', () => {
   let h: PaymentsHarness;

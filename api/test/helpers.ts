@@ -4,7 +4,8 @@ import { Test } from '@nestjs/testing';
 import { randomBytes } from 'node:crypto';
 import * as http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Stripe from 'stripe';
@@ -264,5 +265,16 @@ export async function eventually<T>(check: () => Promise<T | undefined | false>,
     if (value !== undefined && value !== false) return value;
     if (Date.now() - started > timeoutMs) throw new Error(`${what} not reached within ${timeoutMs} ms`);
     await new Promise((r) => setTimeout(r, 100));
+  }
+}
+
+/** A PDF's text as poppler's pdftotext lays it out (the test script installs poppler when missing). */
+export function pdfText(pdf: Buffer): string {
+  const dir = mkdtempSync(join(tmpdir(), 'selvage-pdf-'));
+  try {
+    writeFileSync(join(dir, 'doc.pdf'), pdf);
+    return execFileSync('pdftotext', ['-layout', join(dir, 'doc.pdf'), '-'], { encoding: 'utf8' });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
   }
 }
