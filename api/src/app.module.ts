@@ -20,6 +20,7 @@ import { HealthModule } from './health/health.module';
 import { LayoutModule } from './layout/layout.module';
 import { RoundsModule } from './rounds/rounds.module';
 import { SizeCheckModule } from './size-check/size-check.module';
+import { ShowsModule } from './shows/shows.module';
 import { StorageModule } from './storage/storage.module';
 import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -60,6 +61,7 @@ import { ProfileModule } from './profile/profile.module';
     LayoutModule,
     SizeCheckModule,
     DuesModule,
+    ShowsModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

@@ -23,6 +23,10 @@ import { Household } from './dues/household.entity';
 import { MoneyAuditEntry } from './dues/money-audit.entity';
 import { PaymentWebhookEvent } from './dues/payment-webhook-event.entity';
 import { ReceiptCounter } from './dues/receipt-counter.entity';
+import { BallotCode, ShowBallot, ShowVoter, TieDecisionRecord } from './shows/ballot.entity';
+import { ShowCategory } from './shows/show-category.entity';
+import { ShowEntry } from './shows/show-entry.entity';
+import { Show } from './shows/show.entity';
 
 /** Every entity, listed once for the app, the CLI and the tests. */
 export const ENTITIES = [
@@ -51,4 +55,11 @@ export const ENTITIES = [
   ReceiptCounter,
   PaymentWebhookEvent,
   MoneyAuditEntry,
+  Show,
+  ShowCategory,
+  ShowEntry,
+  BallotCode,
+  ShowVoter,
+  ShowBallot,
+  TieDecisionRecord,
 ];

@@ -1,6 +1,6 @@
-import { DeadlockException, LockWaitTimeoutException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/mariadb';
 import { Guild } from '../guilds/guild.entity';
+export { withTransaction } from '../database/transaction';
 import { DuesPlan } from './dues-plan.entity';
 import {
   DEFAULT_EARLY_RENEWAL_DAYS,
@@ -100,18 +100,3 @@ export async function lockStanding(tx: EntityManager, membershipId: number): Pro
   return tx.findOneOrFail(DuesStanding, { id: rows[0].id }, { refresh: true, populate: ['plan', 'household'] });
 }
 
-/**
- * Runs `work` in a transaction on a fresh EntityManager, again (up to 5 times) when MariaDB picks it
- * as a deadlock victim or a lock wait times out: everything rolled back, so a retry is safe.
- */
-export async function withTransaction<T>(em: EntityManager, work: (tx: EntityManager) => Promise<T>): Promise<T> {
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await em.fork().transactional((tx) => work(tx as EntityManager));
-    } catch (e) {
-      const retryable = e instanceof DeadlockException || e instanceof LockWaitTimeoutException;
-      if (!retryable || attempt >= 5) throw e;
-      await new Promise((r) => setTimeout(r, 10 * attempt + Math.floor(Math.random() * 20)));
-    }
-  }
-}

@@ -2,7 +2,7 @@ import { Injectable, OnModuleDestroy } from '@nestjs/common';
 import { availableParallelism } from 'node:os';
 import { extname, join } from 'node:path';
 import Piscina from 'piscina';
-import type { PhotoOutput, PhotoTask } from './photo.worker';
+import type { PhotoOutput, PhotoTask, ResizeOutput, ResizeTask } from './photo.worker';
 
 /**
  * A small pool of worker threads for photos. From compiled code the worker is plain JS; under the
@@ -27,6 +27,11 @@ export class PhotoProcessor implements OnModuleDestroy {
 
   async process(task: PhotoTask): Promise<PhotoOutput> {
     return this.pool.run(task, { transferList: [task.bytes.buffer as ArrayBuffer] });
+  }
+
+  /** Display and thumbnail images of a photo that is shown but not measured. */
+  async resize(task: ResizeTask): Promise<ResizeOutput> {
+    return this.pool.run(task, { name: 'resizePhoto', transferList: [task.bytes.buffer as ArrayBuffer] });
   }
 
   async onModuleDestroy(): Promise<void> {

@@ -59,23 +59,7 @@ export default async function processPhoto(task: PhotoTask): Promise<PhotoOutput
   };
   try {
     const full = own(cv.matFromImageData(photo as any));
-    const shrunk = (mat: any, edge: number) => {
-      const f = Math.min(1, edge / Math.max(mat.cols, mat.rows));
-      if (f >= 0.999) return mat;
-      const target = new cv.Size(Math.round(mat.cols * f), Math.round(mat.rows * f));
-      let out = mat;
-      // Halving with a Gaussian is fast and does not alias; the last step, by less than a quarter, is
-      // bilinear. (OpenCV's area resampling looks the same here and takes several times as long.)
-      while (out.cols * 0.75 > target.width) {
-        const half = own(new cv.Mat());
-        cv.pyrDown(out, half);
-        out = half;
-      }
-      if (out.cols === target.width && out.rows === target.height) return out;
-      const resized = own(new cv.Mat());
-      cv.resize(out, resized, target, 0, 0, cv.INTER_LINEAR);
-      return resized;
-    };
+    const shrunk = (mat: any, edge: number) => shrink(cv, mat, edge, own);
     const work = shrunk(full, MEASURE_EDGE);
     tick('prepare');
     const result = await measureBlockPhoto({ data: work.data, width: work.cols, height: work.rows }, { printScale: task.printScale });
@@ -115,6 +99,58 @@ export default async function processPhoto(task: PhotoTask): Promise<PhotoOutput
       timingsMs,
       ms: Math.round(performance.now() - started),
     };
+  } finally {
+    for (const m of owned.reverse()) m.delete();
+  }
+}
+
+/**
+ * A smaller copy of `mat` with its long edge at most `edge` px. Halving with a Gaussian is fast and
+ * does not alias; the last step, by less than a quarter, is bilinear. (OpenCV's area resampling looks
+ * the same here and takes several times as long.) New mats are handed to `own` for deletion.
+ */
+function shrink(cv: any, mat: any, edge: number, own: <T extends { delete(): void }>(m: T) => T): any {
+  const f = Math.min(1, edge / Math.max(mat.cols, mat.rows));
+  if (f >= 0.999) return mat;
+  const target = new cv.Size(Math.round(mat.cols * f), Math.round(mat.rows * f));
+  let out = mat;
+  while (out.cols * 0.75 > target.width) {
+    const half = own(new cv.Mat());
+    cv.pyrDown(out, half);
+    out = half;
+  }
+  if (out.cols === target.width && out.rows === target.height) return out;
+  const resized = own(new cv.Mat());
+  cv.resize(out, resized, target, 0, 0, cv.INTER_LINEAR);
+  return resized;
+}
+
+export interface ResizeTask {
+  bytes: Uint8Array;
+  type: PhotoType;
+}
+
+export interface ResizeOutput {
+  width: number;
+  height: number;
+  display: Uint8Array;
+  thumb: Uint8Array;
+}
+
+/** A photo that is only shown, not measured (a show entry): the display and thumbnail images. */
+export async function resizePhoto(task: ResizeTask): Promise<ResizeOutput> {
+  const cv: any = await loadOpenCv();
+  const photo = await decodePhoto(task.bytes, task.type);
+  const owned: { delete(): void }[] = [];
+  const own = <T extends { delete(): void }>(m: T): T => {
+    owned.push(m);
+    return m;
+  };
+  try {
+    const full = own(cv.matFromImageData(photo as any));
+    const display = shrink(cv, full, DISPLAY_EDGE, own);
+    const thumb = shrink(cv, display, THUMB_EDGE, own);
+    return { width: photo.width, height: photo.height, display: await encodeJpeg(rgba(display), 82), thumb: await encodeJpeg(rgba(thumb), 75) };
   } finally {
     for (const m of owned.reverse()) m.delete();
   }

@@ -9,5 +9,6 @@ import { SizeChecksService } from './size-checks.service';
   imports: [RoundsModule],
   controllers: [SizeChecksController, ReferenceCardController],
   providers: [SizeChecksService, PhotoProcessor],
+  exports: [PhotoProcessor],
 })
 export class SizeCheckModule {}
