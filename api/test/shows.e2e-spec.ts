@@ -1,5 +1,6 @@
 import { Jimp } from 'jimp';
-import { createScenario, createTestApp, signIn, type TestApp } from './helpers';
+import { parse } from 'csv-parse/sync';
+import { createScenario, createTestApp, pdfText, signIn, type TestApp } from './helpers';
 import { acceptedEntry, setUpShow } from './shows-helpers';
 
 /**
@@ -170,6 +171,34 @@ describe('quilt show: set-up and entries', () => {
     await member.post(`${base}/entries/${e}/photo`).attach('photo', truncated, { filename: 'q.png', contentType: 'image/png' }).expect((r) => expect([415, 422]).toContain(r.status));
     // The good photo is still there.
     await member.get(`${base}/entries/${e}/photo`).expect(200);
+  });
+
+  it('prints hang tags (makers hidden until judging is done), the entry list as PDF and CSV', async () => {
+    const { s, chair, member, base, medium, large } = await world();
+    const showId = Number(base.split('/').pop());
+    await acceptedEntry(chair, s.guild.id, showId, medium, 'Wren Song', ['50', '60'], ['Ottoline Marsh', 'Bea Thistle']);
+    await acceptedEntry(chair, s.guild.id, showId, large, 'Hollow Oak', ['70', '80 1/4'], ['Ida Fenwick']);
+    await member.post(`${base}/entries`).send({ categoryId: medium, title: 'Still waiting', widthIn: '50', heightIn: '60', makers: ['Me'] }).expect(201);
+    await chair.post(`${base}/entries/number`).send({ startAt: 7 }).expect(200);
+    const binary = (r: import('supertest').Response) => r.body as Buffer;
+    const hidden = pdfText(binary(await chair.get(`${base}/hang-tags.pdf`).buffer(true).expect(200).expect('content-type', 'application/pdf')));
+    expect(hidden).toContain('Wren Song');
+    expect(hidden).toContain('No. 7');
+    expect(hidden).not.toContain('Ottoline');
+    expect(hidden).not.toContain('Still waiting'); // only accepted entries hang
+    const shown = pdfText(binary(await chair.get(`${base}/hang-tags.pdf?hideMakers=0`).buffer(true).expect(200)));
+    expect(shown).toContain('Ottoline Marsh');
+    expect(shown).toContain('70 x 80 1/4 in');
+    await member.get(`${base}/hang-tags.pdf`).expect(403);
+    const list = pdfText(binary(await chair.get(`${base}/entries.pdf`).buffer(true).expect(200)));
+    for (const title of ['Wren Song', 'Hollow Oak', 'Still waiting']) expect(list).toContain(title);
+    const csv = parse((await chair.get(`${base}/entries.csv`).expect(200)).text.replace(/^\uFEFF/, ''), { columns: true }) as Record<string, string>[];
+    expect(csv.map((r) => [r['Entry number'], r.Title, r.Status])).toEqual([
+      ['7', 'Wren Song', 'Accepted'],
+      ['', 'Still waiting', 'Submitted'],
+      ['8', 'Hollow Oak', 'Accepted'],
+    ]);
+    expect(csv[0].Makers).toBe('Ottoline Marsh; Bea Thistle');
   });
 
   it('withdraws an entry and frees its number', async () => {

@@ -8,9 +8,17 @@ import { Membership } from '../guilds/membership.entity';
 import { MAX_PHOTO_BYTES } from '../size-check/photo-intake';
 import { CategoryDto, CreateShowDto, EntryDto, NumberEntriesDto, ReviewEntryDto, UpdateCategoryDto, UpdateEntryDto, UpdateShowDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
+import { type PrintedFile, ShowPrintsService } from './show-prints.service';
 import { ShowsService } from './shows.service';
 
 const id = () => new ParseIntPipe({ errorHttpStatusCode: 404 });
+
+export function sendFile(res: Response, file: PrintedFile, contentType: string) {
+  res.setHeader('Content-Type', contentType);
+  res.setHeader('Content-Disposition', `attachment; filename="${file.filename}"`);
+  res.setHeader('Cache-Control', 'private, no-store');
+  res.send(file.bytes);
+}
 
 export function sendPhoto(res: Response, bytes: Buffer, cache: 'private' | 'public') {
   res.setHeader('Content-Type', 'image/jpeg');
@@ -26,6 +34,7 @@ export class ShowsController {
   constructor(
     private readonly shows: ShowsService,
     private readonly entries: ShowEntriesService,
+    private readonly prints: ShowPrintsService,
   ) {}
 
   @Get()
@@ -142,5 +151,23 @@ export class ShowsController {
     @Res() res: Response,
   ) {
     sendPhoto(res, await this.entries.photo(me, showId, entryId, size), 'private');
+  }
+
+  @Get(':showId/hang-tags.pdf')
+  @Roles('show_chair')
+  async hangTags(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('hideMakers') hide: string | undefined, @Res() res: Response) {
+    sendFile(res, await this.prints.hangTags(me, showId, hide === undefined ? null : hide === '1' || hide === 'true'), 'application/pdf');
+  }
+
+  @Get(':showId/entries.pdf')
+  @Roles('show_chair')
+  async entriesPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Res() res: Response) {
+    sendFile(res, await this.prints.entryListPdf(me, showId), 'application/pdf');
+  }
+
+  @Get(':showId/entries.csv')
+  @Roles('show_chair')
+  async entriesCsv(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Res() res: Response) {
+    sendFile(res, await this.prints.entryListCsv(me, showId), 'text/csv; charset=utf-8');
   }
 }

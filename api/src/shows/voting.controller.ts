@@ -7,7 +7,8 @@ import { Roles } from '../common/decorators/roles.decorator';
 import { Membership } from '../guilds/membership.entity';
 import { BallotDto, IssueCodesDto, PaperBallotDto, TieDecisionDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
-import { sendPhoto } from './shows.controller';
+import { ShowPrintsService } from './show-prints.service';
+import { sendFile, sendPhoto } from './shows.controller';
 import { VotingService } from './voting.service';
 
 const id = () => new ParseIntPipe({ errorHttpStatusCode: 404 });
@@ -22,7 +23,22 @@ export function sendCsv(res: Response, filename: string, csv: string) {
 @ApiTags('shows')
 @Controller('guilds/:guildId/shows/:showId')
 export class VotingController {
-  constructor(private readonly voting: VotingService) {}
+  constructor(
+    private readonly voting: VotingService,
+    private readonly prints: ShowPrintsService,
+  ) {}
+
+  @Get('voting/codes.pdf')
+  @Roles('show_chair')
+  async codesPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('batch', id()) batch: number, @Res() res: Response) {
+    sendFile(res, await this.prints.ballotCards(me, showId, batch), 'application/pdf');
+  }
+
+  @Get('results.pdf')
+  @Roles('show_chair')
+  async resultsPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Res() res: Response) {
+    sendFile(res, await this.prints.resultsPdf(me, showId), 'application/pdf');
+  }
 
   @Get('ballot')
   ballot(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number) {

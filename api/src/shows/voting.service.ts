@@ -1,4 +1,4 @@
-import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { randomBytes } from 'node:crypto';
@@ -169,12 +169,8 @@ export class VotingService {
       await withTransaction(this.em, async (tx) => {
         // A shared lock on the show: closing (which locks it for update) waits for ballots in flight,
         // and a ballot that starts after closing sees it closed.
-        const rows: { voting_opens_at: Date | null; voting_closes_at: Date | null; voting_opened_at: Date | null; voting_closed_at: Date | null }[] = await tx.execute(
-          'SELECT voting_opens_at, voting_closes_at, voting_opened_at, voting_closed_at FROM shows WHERE id = ? LOCK IN SHARE MODE',
-          [show.id],
-        );
-        const r = rows[0];
-        const state = votingState({ votingOpensAt: r.voting_opens_at, votingClosesAt: r.voting_closes_at, votingOpenedAt: r.voting_opened_at, votingClosedAt: r.voting_closed_at }, now);
+        const fresh = await tx.findOneOrFail(Show, { id: show.id }, { lockMode: LockMode.PESSIMISTIC_READ, refresh: true, fields: ['votingOpensAt', 'votingClosesAt', 'votingOpenedAt', 'votingClosedAt'] });
+        const state = votingState(fresh, now);
         if (state === 'closed') throw new ConflictException(`Voting for ${show.name} has closed. Thank you for coming.`);
         if (state !== 'open') throw new ConflictException(`Voting for ${show.name} has not opened yet.`);
         // The unique key (show_id, voter_key) is the one-ballot rule: a second insert fails here.

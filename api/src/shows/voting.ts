@@ -106,6 +106,7 @@ export interface CategoryResult {
   blank: number;
   spoiled: number;
   votes: number;
+  /** `byDecision`: the entry's rank comes from a chair's recorded decision. */
   standings: { entryId: number; score: number; rank: number; ribbon: 1 | 2 | 3 | null; byDecision: boolean }[];
   /** Shared ranks that decide a ribbon and could be settled by the chair. */
   ties: { rank: number; entryIds: number[] }[];
@@ -151,10 +152,11 @@ export function countShow(
       decisions: usable.map((d) => ({ order: d.order.map(String) })),
     });
     const ribbonOf = new Map(r.ribbons.map((x) => [x.entry, x]));
+    const decided = new Set(usable.flatMap((d) => d.order.map(String)));
     const settled = r.standings.map((s) => ({
       ...toStanding(s),
       ribbon: ribbonOf.get(s.entry)?.place ?? null,
-      byDecision: ribbonOf.get(s.entry)?.byDecision ?? false,
+      byDecision: decided.has(s.entry),
     }));
     const ties: CategoryResult['ties'] = [];
     for (const rank of new Set(r.standings.map((s) => s.rank))) {
