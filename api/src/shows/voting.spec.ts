@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import type { BallotChoices } from './ballot.entity';
 import { type BallotCategory, checkBallot, countShow, votingState } from './voting';
 
 const at = (iso: string) => new Date(iso);
@@ -55,7 +56,7 @@ describe('checkBallot', () => {
 
 describe('countShow', () => {
   it('counts each category and gives ribbons by the default rule (TRADE.md §6.6: ≤ 3 entries 1st only)', () => {
-    const ballots = [{ categories: { 1: [12], 2: [21] } }, { categories: { 1: [12] } }, { categories: { 1: [11], 2: [22] } }, { categories: { 2: [22] } }];
+    const ballots: BallotChoices[] = [{ categories: { 1: [12], 2: [21] } }, { categories: { 1: [12] } }, { categories: { 1: [11], 2: [22] } }, { categories: { 2: [22] } }];
     const [bed, wall] = countShow('per_category', 'points', categories, ballots);
     expect(bed).toMatchObject({ ballots: 4, blank: 1, votes: 3, ties: [] });
     expect(bed.standings).toEqual([

@@ -17,6 +17,7 @@ import { RoundBlock, type BlockStatus } from '../../rounds/round-block.entity';
 import { defaultSendAt } from '../../rounds/round-presenter';
 import { Round } from '../../rounds/round.entity';
 import { seedDemoDues } from './demo-dues';
+import { seedDemoShows } from './demo-show';
 
 /** The month `offset` months after `month` (negative for before). */
 function monthsAround(month: string, offset: number): string {
@@ -98,7 +99,10 @@ export class DemoSeeder extends Seeder {
       }
       await em.flush();
       for (const b of g.bees) await this.seedBee(em, guild, b, memberships);
-      if (g.key === 'wrenfield') await seedDemoDues(em, guild, memberships);
+      if (g.key === 'wrenfield') {
+        await seedDemoDues(em, guild, memberships);
+        await seedDemoShows(em, guild, memberships);
+      }
     }
     await em.flush();
   }
