@@ -320,6 +320,7 @@ async function bench() {
   await mustRun('photo fixtures', process.execPath, [join(API, 'dist', 'scripts', 'generate-photo-fixtures.js'), photos], process.env);
   await mustRun('size-check accuracy', process.execPath, [join(API, 'dist', 'src', 'size-check', 'measure', 'accuracy-bench.js'), photos], process.env);
   await mustRun('dues bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-dues.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
+  await mustRun('ballot bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-ballots.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
 }
 
 const commands: Record<string, () => Promise<void>> = { start, dev, test, bench };

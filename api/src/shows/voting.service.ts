@@ -1,4 +1,4 @@
-import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
+import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { randomBytes } from 'node:crypto';
@@ -10,15 +10,27 @@ import { formatBallotCode, generateBallotCode, normaliseBallotCode } from './bal
 import { BallotCode, type BallotChoices, TieDecisionRecord, type VoterChannel } from './ballot.entity';
 import { TieDecisionDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
-import type { ShowEntry } from './show-entry.entity';
 import { sizeText } from './show-presenter';
 import { Show } from './show.entity';
 import { isShowChair, ShowsService } from './shows.service';
 import { type BallotCategory, checkBallot, countShow, votingState } from './voting';
 
+/** An accepted entry as the ballot and the count need it (plain data, safe to keep between requests). */
+interface BallotEntry {
+  id: number;
+  entryNumber: number | null;
+  title: string;
+  makers: string[];
+  hasPhoto: boolean;
+  widthMm: number;
+  heightMm: number;
+}
+
+/** What a show's ballot offers, and what casting needs to know about the show. */
 interface BallotDefinition {
+  show: { id: number; name: string; votingKind: Show['votingKind']; rankDepth: number };
   categories: (BallotCategory & { description: string })[];
-  entries: Map<number, ShowEntry>;
+  entries: Map<number, BallotEntry>;
 }
 
 const SCORE_LABEL = { per_category: 'Votes', approval: 'Approvals', points: 'Points', instant_runoff: 'Votes in the last round' } as const;
@@ -34,7 +46,7 @@ export class VotingService {
    * change them refuses), so the ballot's definition is cached per show and opening instant. Nothing
    * mutable lives here: another api instance builds the same definition from the database.
    */
-  private readonly definitions = new Map<string, Promise<BallotDefinition>>();
+  private readonly definitions = new Map<number, Promise<BallotDefinition>>();
 
   constructor(
     private readonly em: EntityManager,
@@ -49,6 +61,7 @@ export class VotingService {
       const categories = await this.shows.categories(show, em);
       const accepted = await this.entries.accepted(show, em);
       return {
+        show: { id: show.id, name: show.name, votingKind: show.votingKind, rankDepth: show.rankDepth },
         categories: categories
           .map((c) => ({
             id: c.id,
@@ -57,16 +70,25 @@ export class VotingService {
             entries: accepted.filter((e) => e.category.id === c.id).map((e) => ({ id: e.id, entryNumber: e.entryNumber ?? null, title: e.title })),
           }))
           .filter((c) => c.entries.length > 0),
-        entries: new Map(accepted.map((e) => [e.id, e])),
+        entries: new Map(
+          accepted.map((e) => [
+            e.id,
+            { id: e.id, entryNumber: e.entryNumber ?? null, title: e.title, makers: e.makers, hasPhoto: !!e.photoKey, widthMm: e.widthMm, heightMm: e.heightMm },
+          ]),
+        ),
       };
     };
-    if (votingState(show) !== 'open' || !show.votingOpenedAt) return build();
-    const key = `${show.id}:${show.votingOpenedAt.getTime()}`;
-    let cached = this.definitions.get(key);
+    if (votingState(show) !== 'open') return build();
+    return this.openDefinition(show.id, build);
+  }
+
+  /** The cached definition of a show whose voting is open (its kind, categories and entries are frozen). */
+  private openDefinition(showId: number, build: () => Promise<BallotDefinition>): Promise<BallotDefinition> {
+    let cached = this.definitions.get(showId);
     if (!cached) {
       cached = build();
-      this.definitions.set(key, cached);
-      cached.catch(() => this.definitions.delete(key));
+      this.definitions.set(showId, cached);
+      cached.catch(() => this.definitions.delete(showId));
       if (this.definitions.size > 200) this.definitions.delete(this.definitions.keys().next().value!);
     }
     return cached;
@@ -74,8 +96,8 @@ export class VotingService {
 
   private async presentBallot(show: Show, extra: Record<string, unknown>, publicPhotos: boolean) {
     const def = await this.definition(show);
-    const photoUrl = (e: ShowEntry) =>
-      !e.photoKey ? null : publicPhotos ? `/api/public/shows/${show.id}/entries/${e.id}/photo?size=thumb` : `/api/guilds/${show.guild.id}/shows/${show.id}/entries/${e.id}/photo?size=thumb`;
+    const photoUrl = (e: BallotEntry) =>
+      !e.hasPhoto ? null : publicPhotos ? `/api/public/shows/${show.id}/entries/${e.id}/photo?size=thumb` : `/api/guilds/${show.guild.id}/shows/${show.id}/entries/${e.id}/photo?size=thumb`;
     return {
       show: {
         id: show.id,
@@ -140,12 +162,23 @@ export class VotingService {
 
   async castMember(me: Membership, showId: number, choices: unknown) {
     const show = await this.shows.findShow(me, showId);
-    return this.cast(show, `member:${me.id}`, 'member', null, choices, 'You have already voted in this show. A cast ballot is final.');
+    this.assertOpen(show);
+    return this.cast(await this.definition(show), `member:${me.id}`, 'member', null, choices, 'You have already voted in this show. A cast ballot is final.');
   }
 
   async castCode(typed: string, choices: unknown) {
-    const row = await this.codeRow(typed);
-    return this.cast(row.show, `code:${row.id}`, 'code', row.id, choices, 'This ballot card has already been used to vote. Each card votes once.');
+    // The busiest path at a show: one indexed read, then the cached ballot definition while voting is open.
+    const code = normaliseBallotCode(typed);
+    const rows: { id: number; show_id: number }[] = code ? await this.em.execute('SELECT id, show_id FROM ballot_codes WHERE code = ?', [code]) : [];
+    if (!rows.length) throw new NotFoundException('We do not know that code. Check it against your ballot card; the letters O and I are never used.');
+    const showId = Number(rows[0].show_id);
+    let def = await this.definitions.get(showId);
+    if (!def) {
+      const show = await this.em.findOneOrFail(Show, { id: showId }, { populate: ['guild'] });
+      this.assertOpen(show);
+      def = await this.definition(show);
+    }
+    return this.cast(def, `code:${rows[0].id}`, 'code', Number(rows[0].id), choices, 'This ballot card has already been used to vote. Each card votes once.');
   }
 
   async castPaper(me: Membership, showId: number, typed: string, choices: unknown) {
@@ -154,31 +187,37 @@ export class VotingService {
     if (!code) throw new BadRequestException({ message: 'That is not a ballot code: codes have 12 letters and digits, like K7QM-3XHD-9PRW.', errors: { code: ['Check the code on the paper ballot.'] } });
     const row = await this.em.findOne(BallotCode, { code, show: show.id });
     if (!row) throw new NotFoundException({ message: 'No ballot card of this show has that code. Check it against the paper ballot.', errors: { code: ['No card of this show has that code.'] } });
-    const result = await this.cast(show, `code:${row.id}`, 'paper', row.id, choices, `Code ${formatBallotCode(code)} has already voted${row.usedAt ? '' : ''}. Set this paper ballot aside as a duplicate.`);
+    this.assertOpen(show);
+    const result = await this.cast(await this.definition(show), `code:${row.id}`, 'paper', row.id, choices, `Code ${formatBallotCode(code)} has already voted${row.usedAt ? '' : ''}. Set this paper ballot aside as a duplicate.`);
     return { ...result, code: formatBallotCode(code) };
   }
 
-  private async cast(show: Show, voterKey: string, channel: VoterChannel, codeId: number | null, raw: unknown, duplicate: string) {
-    // Validate against the ballot's content first: a bad ballot writes nothing.
-    this.assertOpen(show);
-    const def = await this.definition(show);
+  /**
+   * Writes one ballot, or nothing. The ballot is checked against the definition first; then, in one
+   * transaction: the show's voting state under a shared lock (closing takes it for update, so it waits
+   * for ballots in flight and a later ballot sees it closed), the voter's row (the unique key on
+   * (show_id, voter_key) is the one-ballot rule), the code marked used, and the anonymous ballot.
+   */
+  private async cast(def: BallotDefinition, voterKey: string, channel: VoterChannel, codeId: number | null, raw: unknown, duplicate: string) {
+    const show = def.show;
     const checked = checkBallot(show.votingKind, show.rankDepth, def.categories, raw);
     if (!checked.ok) throw new BadRequestException({ message: checked.message, errors: { choices: [checked.message] } });
     const now = new Date();
     try {
       await withTransaction(this.em, async (tx) => {
-        // A shared lock on the show: closing (which locks it for update) waits for ballots in flight,
-        // and a ballot that starts after closing sees it closed.
-        const fresh = await tx.findOneOrFail(Show, { id: show.id }, { lockMode: LockMode.PESSIMISTIC_READ, refresh: true, fields: ['votingOpensAt', 'votingClosesAt', 'votingOpenedAt', 'votingClosedAt'] });
-        const state = votingState(fresh, now);
+        const rows: Record<'opens' | 'closes' | 'opened' | 'closed', number | string | null>[] = await tx.execute(
+          `SELECT UNIX_TIMESTAMP(voting_opens_at) AS opens, UNIX_TIMESTAMP(voting_closes_at) AS closes,
+                  UNIX_TIMESTAMP(voting_opened_at) AS opened, UNIX_TIMESTAMP(voting_closed_at) AS closed
+             FROM shows WHERE id = ? LOCK IN SHARE MODE`,
+          [show.id],
+        );
+        const at = (v: number | string | null) => (v == null ? null : new Date(Number(v) * 1000));
+        const r = rows[0];
+        const state = votingState({ votingOpensAt: at(r.opens), votingClosesAt: at(r.closes), votingOpenedAt: at(r.opened), votingClosedAt: at(r.closed) }, now);
         if (state === 'closed') throw new ConflictException(`Voting for ${show.name} has closed. Thank you for coming.`);
         if (state !== 'open') throw new ConflictException(`Voting for ${show.name} has not opened yet.`);
-        // The unique key (show_id, voter_key) is the one-ballot rule: a second insert fails here.
         await tx.execute('INSERT INTO show_voters (show_id, voter_key, channel, cast_at) VALUES (?, ?, ?, ?)', [show.id, voterKey, channel, now], 'run');
-        if (codeId !== null) {
-          const res = await tx.execute('UPDATE ballot_codes SET used_at = ?, updated_at = ? WHERE id = ? AND used_at IS NULL', [now, now, codeId], 'run');
-          if (Number((res as { affectedRows?: number }).affectedRows ?? 1) !== 1) throw new ConflictException(duplicate);
-        }
+        if (codeId !== null) await tx.execute('UPDATE ballot_codes SET used_at = ?, updated_at = ? WHERE id = ?', [now, now, codeId], 'run');
         await tx.execute('INSERT INTO show_ballots (id, show_id, choices) VALUES (?, ?, ?)', [randomBytes(16).toString('base64url'), show.id, JSON.stringify(checked.choices)], 'run');
       });
     } catch (e) {
