@@ -109,6 +109,8 @@ const ACCESS: Record<string, Access> = {
   'GET /api/guilds/:guildId/shows/:showId/hang-tags.pdf': ['show_chair'],
   'GET /api/guilds/:guildId/shows/:showId/entries.pdf': ['show_chair'],
   'GET /api/guilds/:guildId/shows/:showId/entries.csv': ['show_chair'],
+  'GET /api/guilds/:guildId/shows/:showId/fees/mine': 'member',
+  'POST /api/guilds/:guildId/shows/:showId/fees/checkout': 'member',
   'GET /api/guilds/:guildId/shows/:showId/ballot': 'member',
   'POST /api/guilds/:guildId/shows/:showId/ballot': 'member',
   'POST /api/guilds/:guildId/shows/:showId/voting/open': ['show_chair'],

@@ -9,8 +9,12 @@ export type InvoiceStatus = (typeof INVOICE_STATUSES)[number];
 export const PAYMENT_METHODS = ['card', 'cash', 'cheque'] as const;
 export type PaymentMethod = (typeof PAYMENT_METHODS)[number];
 
+/** What an invoice is for: the yearly dues, or a member's entry fees for one quilt show. */
+export const INVOICE_PURPOSES = ['dues', 'show_entry'] as const;
+export type InvoicePurpose = (typeof INVOICE_PURPOSES)[number];
+
 export interface InvoiceLine {
-  kind: 'dues' | 'proration' | 'late-fee' | 'adjustment';
+  kind: 'dues' | 'proration' | 'late-fee' | 'adjustment' | 'entry-fee';
   label: string;
   amountCents: number;
 }
@@ -20,7 +24,7 @@ export interface InvoiceLine {
 @Index({ properties: ['guild', 'status'] })
 @Unique({ properties: ['guild', 'receiptNumber'] })
 export class DuesInvoice extends BaseEntity<
-  'status' | 'refundedCents' | 'checkoutAttempts' | 'openKey' | 'checkoutSessionId' | 'checkoutUrl' | 'paymentNote' | 'paidAt' | 'paidOn' | 'method' | 'chequeNumber' | 'receiptNumber' | 'priorPaidThrough' | 'createdBy' | 'voidedAt' | 'coversFrom' | 'coversThrough' | 'plan'
+  'purpose' | 'showId' | 'status' | 'refundedCents' | 'checkoutAttempts' | 'openKey' | 'checkoutSessionId' | 'checkoutUrl' | 'paymentNote' | 'paidAt' | 'paidOn' | 'method' | 'chequeNumber' | 'receiptNumber' | 'priorPaidThrough' | 'createdBy' | 'voidedAt' | 'coversFrom' | 'coversThrough' | 'plan'
 > {
   @ManyToOne(() => Guild, { deleteRule: 'cascade' })
   guild!: Guild;
@@ -30,6 +34,13 @@ export class DuesInvoice extends BaseEntity<
 
   @ManyToOne(() => DuesPlan, { nullable: true, deleteRule: 'set null' })
   plan?: DuesPlan | null = null;
+
+  @Enum({ items: [...INVOICE_PURPOSES], type: 'string', length: 12 })
+  purpose: InvoicePurpose = 'dues';
+
+  /** For show entry fees: the show (a plain id, so the dues tables do not depend on the shows feature). */
+  @Property({ type: 'integer', nullable: true, unsigned: true })
+  showId?: number | null = null;
 
   @Property({ type: 'string', length: 80 })
   planName!: string;

@@ -430,7 +430,7 @@ export class DuesLedgerService {
         guildName: guild.name,
         receiptNumber: invoice.receiptNumber,
         totalText: money(d.amountCents, invoice.currency),
-        periodText: periodText(invoice.coversFrom, invoice.coversThrough),
+        periodText: periodText(invoice.coversFrom, invoice.coversThrough, invoice.purpose, invoice.yearLabel),
         paidOnText: formatDate(d.paidOn),
         methodText: methodText(payment),
         duesUrl: this.duesUrl(guild.id),
@@ -580,7 +580,7 @@ export class DuesLedgerService {
 
       const label = yearLabelOf(quote, settings);
       const openKey = `${me.id}:${label}:${plan.id}`;
-      const open = await tx.find(DuesInvoice, { membership: me.id, status: 'open' }, { populate: ['guild', 'membership.user', 'plan'], orderBy: { id: 'asc' } });
+      const open = await tx.find(DuesInvoice, { membership: me.id, status: 'open', purpose: 'dues' }, { populate: ['guild', 'membership.user', 'plan'], orderBy: { id: 'asc' } });
       let invoice = open.find((i) => i.openKey === openKey && i.totalCents === quote.totalCents && sameLines(i.lines, quote.lines)) ?? null;
       for (const other of open.filter((i) => i !== invoice)) {
         if (await this.closeOpenInvoice(tx, other, standing, me, actorName, 'replaced by a new invoice at checkout'))
@@ -613,31 +613,117 @@ export class DuesLedgerService {
         await tx.flush();
         await tx.populate(invoice, ['guild', 'membership.user', 'plan']);
       }
-      invoice.checkoutAttempts += 1;
-      const metadata = { invoiceId: String(invoice.id), guildId: String(guild.id) };
-      const currency = invoice.currency.toLowerCase();
-      const session = await this.gateway.createSession(
-        {
-          mode: 'payment',
-          line_items: invoice.lines
-            .filter((l) => l.amountCents > 0)
-            .map((l) => ({ price_data: { currency, unit_amount: l.amountCents, product_data: { name: l.label } }, quantity: 1 })),
-          success_url: `${this.app.origin}/guilds/${guild.id}/dues/return?invoice=${invoice.id}&session={CHECKOUT_SESSION_ID}`,
-          cancel_url: `${this.app.origin}/guilds/${guild.id}/dues?cancelled=1`,
-          customer_email: invoice.membership.user.email,
-          client_reference_id: String(invoice.id),
-          metadata,
-          payment_intent_data: { metadata, description: `${guild.name}: ${invoice.yearLabel} dues (${invoice.planName})`.slice(0, 1000) },
-        },
-        `selvage-checkout-${invoice.id}-${me.id}-${invoice.totalCents}-${invoice.checkoutAttempts}`,
+      const url = await this.openSession(
+        tx,
+        invoice,
+        me,
+        `${this.app.origin}/guilds/${guild.id}/dues/return?invoice=${invoice.id}&session={CHECKOUT_SESSION_ID}`,
+        `${this.app.origin}/guilds/${guild.id}/dues?cancelled=1`,
+        `${guild.name}: ${invoice.yearLabel} dues (${invoice.planName})`,
       );
-      invoice.checkoutSessionId = session.id;
-      invoice.checkoutUrl = session.url;
-      await tx.flush();
-      return { invoiceId: invoice.id, url: session.url! };
+      return { invoiceId: invoice.id, url };
     });
     if ('justPaid' in result)
       throw new ConflictException(`Your payment has just gone through (receipt ${result.justPaid}). There is nothing more to pay.`);
+    return result;
+  }
+
+  /** A new Checkout Session for an open invoice (its lines as the items), in the caller's transaction. */
+  private async openSession(tx: EntityManager, invoice: DuesInvoice, me: Membership, successUrl: string, cancelUrl: string, description: string): Promise<string> {
+    invoice.checkoutAttempts += 1;
+    const metadata = { invoiceId: String(invoice.id), guildId: String(invoice.guild.id) };
+    const currency = invoice.currency.toLowerCase();
+    const session = await this.gateway.createSession(
+      {
+        mode: 'payment',
+        line_items: invoice.lines
+          .filter((l) => l.amountCents > 0)
+          .map((l) => ({ price_data: { currency, unit_amount: l.amountCents, product_data: { name: l.label } }, quantity: 1 })),
+        success_url: successUrl,
+        cancel_url: cancelUrl,
+        customer_email: invoice.membership.user.email,
+        client_reference_id: String(invoice.id),
+        metadata,
+        payment_intent_data: { metadata, description: description.slice(0, 1000) },
+      },
+      `selvage-checkout-${invoice.id}-${me.id}-${invoice.totalCents}-${invoice.checkoutAttempts}`,
+    );
+    invoice.checkoutSessionId = session.id;
+    invoice.checkoutUrl = session.url;
+    await tx.flush();
+    return session.url!;
+  }
+
+  /**
+   * Card checkout for a charge that is not dues (a show's entry fees): one open invoice per
+   * `openKey`, replaced when the amount changed, paid and receipted the same way as dues (same
+   * webhook, same receipt numbers, same ledger). `linesFor` runs under the member's standing lock,
+   * so two checkouts at once agree on what is owed.
+   */
+  async checkoutCharge(
+    me: Membership,
+    charge: {
+      purpose: 'show_entry';
+      showId: number;
+      label: string;
+      planName: string;
+      openKey: string;
+      linesFor: (tx: EntityManager) => Promise<InvoiceLine[]>;
+      returnPath: string;
+    },
+  ): Promise<{ invoiceId: number; url: string }> {
+    if (!this.gateway.enabled)
+      throw new ServiceUnavailableException('Online card payment is not set up for this guild. Please pay the treasurer by cash or cheque.');
+    const guild = me.guild;
+    const actorName = await this.dues.actorName(me);
+    const result = await withTransaction(this.em, async (tx) => {
+      const standing = await lockStanding(tx, me.id);
+      const lines = await charge.linesFor(tx);
+      const totalCents = lines.reduce((n, l) => n + l.amountCents, 0);
+      const open = await tx.find(DuesInvoice, { membership: me.id, status: 'open', openKey: charge.openKey }, { populate: ['guild', 'membership.user', 'plan'] });
+      let invoice = open.find((i) => i.totalCents === totalCents && sameLines(i.lines, lines)) ?? null;
+      for (const other of open.filter((i) => i !== invoice)) {
+        if (await this.closeOpenInvoice(tx, other, standing, me, actorName, 'replaced by a new invoice at checkout')) return { justPaid: other.receiptNumber! };
+      }
+      if (totalCents <= 0) return { nothing: true as const };
+      if (invoice?.checkoutSessionId) {
+        const session = await this.gateway.retrieveSession(invoice.checkoutSessionId);
+        if (session.status === 'open' && session.url) return { invoiceId: invoice.id, url: session.url };
+        if (session.payment_status === 'paid') {
+          await this.markPaid(tx, invoice, standing, this.cardSettlement(invoice, session));
+          return { justPaid: invoice.receiptNumber! };
+        }
+        invoice.checkoutSessionId = null;
+        invoice.checkoutUrl = null;
+      }
+      if (!invoice) {
+        invoice = tx.create(DuesInvoice, {
+          guild: guild.id,
+          membership: me.id,
+          purpose: charge.purpose,
+          showId: charge.showId,
+          planName: charge.planName,
+          yearLabel: charge.label.slice(0, 40),
+          lines,
+          totalCents,
+          currency: guild.currency,
+          openKey: charge.openKey,
+        });
+        await tx.flush();
+        await tx.populate(invoice, ['guild', 'membership.user', 'plan']);
+      }
+      const url = await this.openSession(
+        tx,
+        invoice,
+        me,
+        `${this.app.origin}/guilds/${guild.id}/dues/return?invoice=${invoice.id}&session={CHECKOUT_SESSION_ID}`,
+        `${this.app.origin}${charge.returnPath}`,
+        `${guild.name}: ${charge.planName}, ${charge.label}`,
+      );
+      return { invoiceId: invoice.id, url };
+    });
+    if ('justPaid' in result) throw new ConflictException(`Your payment has just gone through (receipt ${result.justPaid}). There is nothing more to pay.`);
+    if ('nothing' in result) throw new ConflictException('There is nothing to pay.');
     return result;
   }
 
@@ -671,7 +757,7 @@ export class DuesLedgerService {
       const quote = this.dues.quoteFor(plan, settings, dto.receivedOn, standing.paidThrough ?? null);
       if (!quote || quote.totalCents === 0 || !quote.coversThrough) throw this.nothingToPay(member.user.name, standing.paidThrough ?? null, quote);
 
-      const open = await tx.find(DuesInvoice, { membership: member.id, status: 'open' }, { populate: ['guild', 'membership.user', 'plan'], orderBy: { id: 'asc' } });
+      const open = await tx.find(DuesInvoice, { membership: member.id, status: 'open', purpose: 'dues' }, { populate: ['guild', 'membership.user', 'plan'], orderBy: { id: 'asc' } });
       for (const other of open) {
         if (await this.closeOpenInvoice(tx, other, standing, me, actorName, `${dto.method} payment recorded by the treasurer`))
           return { justPaid: other.receiptNumber! };

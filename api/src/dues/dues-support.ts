@@ -78,7 +78,8 @@ export function planView(p: DuesPlan) {
 
 export const money = (cents: number, currency: string) => formatMoney(cents, currency);
 
-export function periodText(from: IsoDate | null | undefined, through: IsoDate | null | undefined): string {
+export function periodText(from: IsoDate | null | undefined, through: IsoDate | null | undefined, purpose: 'dues' | 'show_entry' = 'dues', label = ''): string {
+  if (purpose === 'show_entry') return `quilt entry fees for ${label}`;
   if (from && through) return `${formatDate(from)} to ${formatDate(through)}`;
   if (through) return `through ${formatDate(through)}`;
   return 'membership dues';

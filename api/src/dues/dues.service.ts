@@ -268,7 +268,7 @@ export class DuesService {
       { membership: me.id, status: { $ne: 'void' } },
       { orderBy: { createdAt: 'desc', id: 'desc' } },
     );
-    const open = invoices.find((i) => i.status === 'open');
+    const open = invoices.find((i) => i.status === 'open' && i.purpose === 'dues');
     // What each plan she could pay for would cost her today, so the page can show the exact lines
     // whichever she picks (the payment makes the same quote again).
     const choices = await this.em.find(
@@ -287,7 +287,8 @@ export class DuesService {
       openInvoice: open ? { id: open.id } : null,
       history: invoices.map((i) => ({
         invoiceId: i.id,
-        label: i.yearLabel,
+        purpose: i.purpose,
+        label: i.purpose === 'show_entry' ? `Entry fees: ${i.yearLabel}` : i.yearLabel,
         issuedOn: todayIn(guild.timeZone, i.createdAt),
         totalCents: i.totalCents,
         currency: i.currency,
@@ -312,7 +313,7 @@ export class DuesService {
     );
     const ids = memberships.map((m) => m.id);
     const standings = ids.length ? await em.find(DuesStanding, { membership: { $in: ids } }, { populate: ['plan', 'household'] }) : [];
-    const open = ids.length ? await em.find(DuesInvoice, { membership: { $in: ids }, status: 'open' }, { orderBy: { id: 'desc' } }) : [];
+    const open = ids.length ? await em.find(DuesInvoice, { membership: { $in: ids }, status: 'open', purpose: 'dues' }, { orderBy: { id: 'desc' } }) : [];
     return memberships.map((m) => {
       const st = standings.find((s) => s.membership.id === m.id) ?? null;
       const { status, statusEndsOn, paidThrough } = this.standingOf(settings, today, st);

@@ -8,6 +8,7 @@ import { Membership } from '../guilds/membership.entity';
 import { MAX_PHOTO_BYTES } from '../size-check/photo-intake';
 import { CategoryDto, CreateShowDto, EntryDto, NumberEntriesDto, ReviewEntryDto, UpdateCategoryDto, UpdateEntryDto, UpdateShowDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
+import { ShowFeesService } from './show-fees.service';
 import { type PrintedFile, ShowPrintsService } from './show-prints.service';
 import { ShowsService } from './shows.service';
 
@@ -35,7 +36,18 @@ export class ShowsController {
     private readonly shows: ShowsService,
     private readonly entries: ShowEntriesService,
     private readonly prints: ShowPrintsService,
+    private readonly fees: ShowFeesService,
   ) {}
+
+  @Get(':showId/fees/mine')
+  myFees(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number) {
+    return this.fees.mine(me, showId);
+  }
+
+  @Post(':showId/fees/checkout')
+  payFees(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number) {
+    return this.fees.checkout(me, showId);
+  }
 
   @Get()
   list(@CurrentMembership() me: Membership) {
