@@ -6,6 +6,7 @@ import { paths } from '@/config/paths';
 import { isDuesOfficer } from '@/config/roles';
 import { useDashboard } from '@/features/dashboard/api/get-dashboard';
 import { useMeta } from '@/features/meta/api/get-meta';
+import { showPaths } from '@/features/shows/lib/paths';
 import { useSignOut, useUser } from '@/lib/auth';
 
 export function AppLayout() {
@@ -22,6 +23,8 @@ export function AppLayout() {
       { to: paths.members.getHref(g.id), label: guilds.length === 1 ? 'Members' : `${g.name} members` },
       { to: paths.bees.getHref(g.id), label: guilds.length === 1 ? 'Bees' : `${g.name} bees` },
       { to: paths.dues.getHref(g.id), label: guilds.length === 1 ? 'Dues' : `${g.name} dues` },
+      // One link per guild; the show chair's pages are reached from the show itself.
+      { to: showPaths.list.getHref(g.id), label: guilds.length === 1 ? 'Shows' : `${g.name} shows` },
       ...(isDuesOfficer(g.roles)
         ? [{ to: paths.treasurer.getHref(g.id), label: guilds.length === 1 ? 'Treasurer' : `${g.name} treasurer` }]
         : []),

@@ -3,6 +3,7 @@ import { createBrowserRouter, Outlet, RouterProvider, type RouteObject } from 'r
 import { RouteError } from '@/components/errors/route-error';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { paths } from '@/config/paths';
+import { showPaths } from '@/features/shows/lib/paths';
 import { RequireAuth } from '@/lib/auth';
 import { AppLayout } from './app-layout';
 
@@ -28,6 +29,9 @@ export const routes: RouteObject[] = [
       { path: paths.forgotPassword.path, lazy: lazyRoute(() => import('./routes/forgot-password')) },
       { path: paths.resetPassword.path, lazy: lazyRoute(() => import('./routes/reset-password')) },
       { path: paths.invitation.path, lazy: lazyRoute(() => import('./routes/invitation')) },
+      // Visitors at a show vote with the code on a ballot card, without an account.
+      { path: showPaths.visitorVote.path, lazy: lazyRoute(() => import('./routes/vote')) },
+      { path: showPaths.visitorBallot.path, lazy: lazyRoute(() => import('./routes/vote-ballot')) },
       {
         element: <AppLayout />,
         children: [
@@ -54,6 +58,16 @@ export const routes: RouteObject[] = [
                   { path: `${paths.treasurer.path}/audit`, lazy: lazyRoute(() => import('./routes/treasurer-audit')) },
                 ],
               },
+              { path: showPaths.list.path, lazy: lazyRoute(() => import('./routes/show-list')) },
+              { path: showPaths.create.path, lazy: lazyRoute(() => import('./routes/show-new')) },
+              { path: showPaths.show.path, lazy: lazyRoute(() => import('./routes/show-home')) },
+              { path: showPaths.settings.path, lazy: lazyRoute(() => import('./routes/show-settings')) },
+              { path: showPaths.enter.path, lazy: lazyRoute(() => import('./routes/show-entry')) },
+              { path: showPaths.editEntry.path, lazy: lazyRoute(() => import('./routes/show-entry')) },
+              { path: showPaths.vote.path, lazy: lazyRoute(() => import('./routes/show-vote')) },
+              { path: showPaths.results.path, lazy: lazyRoute(() => import('./routes/show-results')) },
+              { path: showPaths.entriesReview.path, lazy: lazyRoute(() => import('./routes/show-entries-review')) },
+              { path: showPaths.votingDesk.path, lazy: lazyRoute(() => import('./routes/show-voting')) },
               { path: paths.layoutPlanner.path, lazy: lazyRoute(() => import('./routes/layout-planner')) },
               { path: paths.profile.path, lazy: lazyRoute(() => import('./routes/profile')) },
             ],

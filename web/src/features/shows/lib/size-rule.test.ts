@@ -1,0 +1,53 @@
+import { describe, expect, it } from 'vitest';
+import type { SizeRule } from '../api/types';
+import { mmToInchText, readSize, sizeWarning } from './size-rule';
+
+const mm = (inches: number) => inches * 25.4;
+const medium: SizeRule = { kind: 'perimeter', minMm: mm(160), minInclusive: true, maxMm: mm(240), maxInclusive: true };
+const large: SizeRule = { kind: 'perimeter', minMm: mm(240), minInclusive: false, maxMm: mm(320), maxInclusive: true };
+
+describe('readSize', () => {
+  it('reads fractions, decimals and vulgar fractions, and adds up the perimeter', () => {
+    expect(readSize('60 1/2', '60½')).toEqual({ widthIn: 60.5, heightIn: 60.5, perimeterIn: 242 });
+    expect(readSize('60.5', '59.5')?.perimeterIn).toBe(240);
+  });
+
+  it('waits until both sides can be read', () => {
+    expect(readSize('60', '')).toBeNull();
+    expect(readSize('sixty', '40')).toBeNull();
+    expect(readSize('0', '40')).toBeNull();
+  });
+});
+
+describe('sizeWarning', () => {
+  it('says nothing about a quilt that fits, or a category with no rule', () => {
+    expect(sizeWarning(medium, readSize('60', '60'))).toBeNull();
+    expect(sizeWarning({ kind: 'none' }, readSize('200', '200'))).toBeNull();
+    expect(sizeWarning(medium, null)).toBeNull();
+  });
+
+  it('says which limit a quilt breaks and by how much', () => {
+    expect(sizeWarning(medium, readSize('60 1/2', '60 1/2'))).toBe(
+      'This category takes quilts at most 240 in around. Yours is 242 in around, 2 in over.',
+    );
+    expect(sizeWarning(large, readSize('40', '40'))).toBe('This category takes quilts more than 240 in around. Yours is 160 in around, 80 in short.');
+  });
+
+  it('puts exactly 240 in Medium and not in Large', () => {
+    expect(sizeWarning(medium, readSize('60', '60'))).toBeNull();
+    expect(sizeWarning(large, readSize('60', '60'))).toBe('This category takes quilts more than 240 in around. Yours is 240 in around, exactly on the limit.');
+    expect(sizeWarning(large, readSize('60 1/8', '60'))).toBeNull();
+  });
+
+  it('checks width against width and height against height', () => {
+    const rule: SizeRule = { kind: 'dimensions', maxWidthMm: mm(24), maxHeightMm: mm(36), minWidthMm: null, minHeightMm: null };
+    expect(sizeWarning(rule, readSize('24', '36'))).toBeNull();
+    expect(sizeWarning(rule, readSize('36', '24'))).toBe('This category takes quilts at most 24 in wide. Yours is 12 in too wide.');
+    expect(sizeWarning(rule, readSize('20', '40 1/2'))).toBe('This category takes quilts at most 36 in high. Yours is 4 1/2 in too long.');
+  });
+
+  it('writes millimetres back as inches', () => {
+    expect(mmToInchText(mm(60.5))).toBe('60 1/2');
+    expect(mmToInchText(4064)).toBe('160');
+  });
+});
