@@ -222,10 +222,12 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     const base = `/api/guilds/${g}/shows/${show.showId}`;
     const [memphis, nashville] = [await acceptedEntry(chair, g, show.showId, show.medium, 'Memphis'), await acceptedEntry(chair, g, show.showId, show.medium, 'Nashville')];
     const [chattanooga, knoxville] = [await acceptedEntry(chair, g, show.showId, show.large, 'Chattanooga', ['70', '80']), await acceptedEntry(chair, g, show.showId, show.large, 'Knoxville', ['70', '80'])];
-    await chair.post(`${base}/entries/number`).send({}).expect(200);
     await chair.post(`${base}/voting/codes`).send({ count: 100 }).expect(201);
     const codes = await codesOf(show.showId);
     await chair.post(`${base}/voting/open`).expect(200);
+    // Opening numbered the quilts that had no number yet, in category order.
+    const numbers = (await chair.get(`${base}/entries?status=accepted`).expect(200)).body.map((e: { title: string; entryNumber: number }) => [e.title, e.entryNumber]);
+    expect(numbers).toEqual([['Memphis', 1], ['Nashville', 2], ['Chattanooga', 3], ['Knoxville', 4]]);
     const orders: [number, number[]][] = [
       [42, [memphis, nashville, chattanooga, knoxville]],
       [26, [nashville, chattanooga, knoxville, memphis]],

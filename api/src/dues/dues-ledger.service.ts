@@ -150,6 +150,8 @@ export class DuesLedgerService {
       id: i.id,
       invoiceId: i.id,
       status: i.status,
+      purpose: i.purpose,
+      showId: i.showId ?? null,
       label: i.yearLabel,
       planName: i.planName,
       lines: i.lines,

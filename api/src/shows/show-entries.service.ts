@@ -241,14 +241,20 @@ export class ShowEntriesService {
   async number(me: Membership, showId: number, startAt = 1) {
     return withTransaction(this.em, async (tx) => {
       const show = await this.lockShow(tx, me, showId);
-      const all = await this.accepted(show, tx);
-      const rows: { top: number | null }[] = await tx.execute('SELECT MAX(entry_number) AS top FROM show_entries WHERE show_id = ?', [show.id]);
-      let next = Math.max(startAt, Number(rows[0]?.top ?? 0) + 1);
-      for (const e of all) if (e.entryNumber == null) e.entryNumber = next++;
-      if (next > 10_000) throw new ConflictException('Entry numbers go up to 9999; start lower.');
-      await tx.flush();
+      const all = await this.assignNumbers(tx, show, startAt);
       return all.map((e) => this.present(e, show));
     });
+  }
+
+  /** Gives every accepted entry without a number the next one, in category order; the caller holds the show's lock. */
+  async assignNumbers(tx: EntityManager, show: Show, startAt = 1): Promise<ShowEntry[]> {
+    const all = await this.accepted(show, tx);
+    const rows: { top: number | null }[] = await tx.execute('SELECT MAX(entry_number) AS top FROM show_entries WHERE show_id = ?', [show.id]);
+    let next = Math.max(startAt, Number(rows[0]?.top ?? 0) + 1);
+    for (const e of all) if (e.entryNumber == null) e.entryNumber = next++;
+    if (next > 10_000) throw new ConflictException('Entry numbers go up to 9999; start lower.');
+    await tx.flush();
+    return all;
   }
 
   // ---- photos ------------------------------------------------------------------------------------

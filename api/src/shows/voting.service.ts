@@ -242,6 +242,8 @@ export class VotingService {
       if (state === 'closed') throw new ConflictException('Voting has closed, and closing is final.');
       const accepted = await tx.count('ShowEntry', { show: show.id, status: 'accepted' });
       if (accepted === 0) throw new ConflictException('Accept at least one quilt before voting opens: the ballot would be empty.');
+      // Paper ballots and hang tags name quilts by number: any accepted quilt still without one gets the next.
+      await this.entries.assignNumbers(tx, show);
       show.votingOpenedAt = new Date();
       show.votingOpensAt = null;
       await tx.flush();

@@ -85,4 +85,31 @@ describe('Show page', () => {
     const form = call?.[1]?.body as FormData;
     expect((form.get('photo') as File).name).toBe('winter-barn.jpg');
   });
+
+  it('shows what she owes in entry fees and starts a card payment for it', async () => {
+    const { fetchMock } = renderShow(
+      { entryFeeCents: 1000 },
+      {
+        'GET /api/guilds/1/shows/2/fees/mine': jsonResponse(200, {
+          feeText: '$10.00 per quilt, at most $25.00 per member',
+          currency: 'USD',
+          quilts: 2,
+          owedCents: 2000,
+          paidCents: 1000,
+          dueCents: 1000,
+          canPayOnline: true,
+          openInvoiceId: null,
+          payments: [{ invoiceId: 9, receiptNumber: '2026-0004', amountCents: 1000, refundedCents: 0, paidOn: '2026-11-20' }],
+        }),
+        'POST /api/guilds/1/shows/2/fees/checkout': jsonResponse(201, { invoiceId: 10, url: 'about:blank#pay' }),
+      },
+    );
+    const panel = await screen.findByTestId('entry-fees');
+    expect(panel).toHaveTextContent('For your 2 quilts: $20.00; paid $10.00.');
+    expect(panel).toHaveTextContent('Still to pay: $10.00');
+    expect(panel).toHaveTextContent('$10.00 paid, receipt 2026-0004');
+    fireEvent.click(within(panel).getByRole('button', { name: 'Pay $10.00 by card' }));
+    await waitFor(() => expect(fetchMock.mock.calls.some(([url, init]) => String(url).endsWith('/fees/checkout') && (init as RequestInit)?.method === 'POST')).toBe(true));
+  });
 });
+

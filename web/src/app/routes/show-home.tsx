@@ -13,6 +13,7 @@ import { useMyEntries } from '@/features/shows/api/get-entries';
 import type { Show } from '@/features/shows/api/types';
 import { useUploadEntryPhoto } from '@/features/shows/api/upload-entry-photo';
 import { CategoryList } from '@/features/shows/components/category-list';
+import { EntryFeesPanel } from '@/features/shows/components/entry-fees-panel';
 import { MyEntries } from '@/features/shows/components/my-entries';
 import { ShowChairNav } from '@/features/shows/components/show-chair-nav';
 import { ShowFacts } from '@/features/shows/components/show-facts';
@@ -134,6 +135,9 @@ function ShowPage({ guild, show }: { guild: Guild; show: Show }) {
                 onWithdraw={(entry) => withdraw.mutateAsync(entry.id)}
                 onUploadPhoto={(entry, photo) => upload.mutateAsync({ entryId: entry.id, photo })}
               />
+            )}
+            {show.entryFeeCents > 0 && (
+              <EntryFeesPanel guildId={guildId} showId={showId} hasEntries={(entries.data ?? []).some((e) => e.status === 'submitted' || e.status === 'accepted')} />
             )}
           </section>
         </Col>

@@ -6,6 +6,9 @@ import { duesHref, duesPath, duesQueryKey } from './dues-path';
 export type Invoice = {
   id: number;
   status: InvoiceStatus;
+  /** Dues, or a member's entry fees for one quilt show (`showId`). */
+  purpose?: 'dues' | 'show_entry';
+  showId?: number | null;
   label: string;
   lines: QuoteLine[];
   totalCents: number;

@@ -69,7 +69,8 @@ export function PaymentResult({ guildId, invoiceId, duesHref, intervalMs = POLL_
   }, [settled, gaveUp, giveUpAfterMs, round]);
 
   const view = viewOf(invoice, query.isError && !invoice, gaveUp);
-  const heading = HEADINGS[view];
+  const entryFees = invoice?.purpose === 'show_entry' && invoice.showId != null;
+  const heading = view === 'paid' && entryFees ? 'Thank you: your entry fees are paid' : HEADINGS[view];
   const final = view !== 'checking' && view !== 'waiting';
 
   // Screen readers hear the outcome once it is known; the heading takes focus so the page reads from the top.
@@ -164,9 +165,15 @@ export function PaymentResult({ guildId, invoiceId, duesHref, intervalMs = POLL_
             <a href={receiptHref(guildId, invoice.id)} className="btn btn-primary" target="_blank" rel="noopener">
               Download the receipt (PDF)<span className="visually-hidden">, opens in a new tab</span>
             </a>
-            <Link to={duesHref} className="btn btn-outline-primary">
-              Back to my dues
-            </Link>
+            {entryFees ? (
+              <Link to={`/guilds/${encodeURIComponent(guildId)}/shows/${invoice.showId}`} className="btn btn-outline-primary">
+                Back to the show
+              </Link>
+            ) : (
+              <Link to={duesHref} className="btn btn-outline-primary">
+                Back to my dues
+              </Link>
+            )}
           </div>
         </>
       )}

@@ -79,7 +79,7 @@ function CategoryResults({ category, results, timeZone }: { category: ResultCate
                   {s.title}
                 </th>
                 <td data-label="Place">
-                  {s.ribbon ? <Ribbon place={s.ribbon} /> : ordinal(s.rank)}
+                  {s.ribbon ? <Ribbon place={s.ribbon} /> : <>{ordinal(s.rank)}, no ribbon</>}
                   {s.byDecision && <span className="d-block small">Placed by the show chair’s tie decision</span>}
                 </td>
                 <td data-label="Entry number">{entryNumberText(s.entryNumber) || '—'}</td>
