@@ -18,24 +18,24 @@ export function AppLayout() {
   const signOut = useSignOut();
 
   const guilds = dashboard.data?.guilds ?? [];
-  const guildLinks = [
-    ...guilds.flatMap((g) => [
-      { to: paths.members.getHref(g.id), label: guilds.length === 1 ? 'Members' : `${g.name} members` },
-      { to: paths.bees.getHref(g.id), label: guilds.length === 1 ? 'Bees' : `${g.name} bees` },
-      { to: paths.dues.getHref(g.id), label: guilds.length === 1 ? 'Dues' : `${g.name} dues` },
-      // One link per guild; the show chair's pages are reached from the show itself.
-      { to: showPaths.list.getHref(g.id), label: guilds.length === 1 ? 'Shows' : `${g.name} shows` },
-      ...(isDuesOfficer(g.roles)
-        ? [{ to: paths.treasurer.getHref(g.id), label: guilds.length === 1 ? 'Treasurer' : `${g.name} treasurer` }]
-        : []),
-    ]),
-    { to: paths.layoutPlanner.getHref(), label: 'Layout planner' },
+  const pagesOf = (g: (typeof guilds)[number]) => [
+    { to: paths.members.getHref(g.id), label: 'Members' },
+    { to: paths.bees.getHref(g.id), label: 'Bees' },
+    { to: paths.dues.getHref(g.id), label: 'Dues' },
+    // The show chair's pages are reached from the show itself.
+    { to: showPaths.list.getHref(g.id), label: 'Shows' },
+    ...(isDuesOfficer(g.roles) ? [{ to: paths.treasurer.getHref(g.id), label: 'Treasurer' }] : []),
   ];
+  // One guild: its pages side by side. Several: a menu per guild, so the bar stays on one line.
+  const single = guilds.length === 1;
+  const guildLinks = [...(single ? pagesOf(guilds[0]) : []), { to: paths.layoutPlanner.getHref(), label: 'Layout planner' }];
+  const guildMenus = single ? [] : guilds.map((g) => ({ label: g.name, links: pagesOf(g) }));
 
   return (
     <AppShell
       signedIn={signedIn}
       guildLinks={guildLinks}
+      guildMenus={guildMenus}
       showInbox={meta.data?.devInbox === true}
       signingOut={signOut.isPending}
       onSignOut={() => signOut.mutate(undefined, { onSettled: () => navigate(paths.signIn.getHref()) })}

@@ -1,24 +1,29 @@
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import Container from 'react-bootstrap/Container';
 import Nav from 'react-bootstrap/Nav';
+import NavDropdown from 'react-bootstrap/NavDropdown';
 import Navbar from 'react-bootstrap/Navbar';
 import { Link, NavLink, useLocation } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { Logo } from '@/components/ui/logo';
 
 export type ShellLink = { to: string; label: string; end?: boolean };
+/** A guild's pages under its name, for a member of several guilds (one menu each keeps the bar short). */
+export type ShellMenu = { label: string; links: ShellLink[] };
 
 type AppShellProps = {
   signedIn: boolean;
   /** Links between Dashboard and Profile, e.g. one per guild directory. */
   guildLinks?: ShellLink[];
+  /** Menus after the links, e.g. one per guild when she belongs to several. */
+  guildMenus?: ShellMenu[];
   showInbox?: boolean;
   onSignOut?: () => void;
   signingOut?: boolean;
   children: ReactNode;
 };
 
-export function AppShell({ signedIn, guildLinks = [], showInbox = false, onSignOut, signingOut, children }: AppShellProps) {
+export function AppShell({ signedIn, guildLinks = [], guildMenus = [], showInbox = false, onSignOut, signingOut, children }: AppShellProps) {
   const [expanded, setExpanded] = useState(false);
   const location = useLocation();
   const mainRef = useRef<HTMLElement>(null);
@@ -40,19 +45,33 @@ export function AppShell({ signedIn, guildLinks = [], showInbox = false, onSignO
         Skip to main content
       </a>
       <header>
-        <Navbar expand="lg" className="app-navbar" expanded={expanded} onToggle={setExpanded}>
+        <Navbar expand="xl" className="app-navbar" expanded={expanded} onToggle={setExpanded}>
           <Container>
             <Navbar.Brand as={Link} to={paths.home.getHref()} className="py-1">
               <Logo title="Selvage, go to dashboard" height={36} />
             </Navbar.Brand>
             <Navbar.Toggle aria-controls="main-navigation" label="Menu" />
             <Navbar.Collapse id="main-navigation">
-              <Nav as="nav" aria-label="Main" className="ms-auto align-items-lg-center">
+              <Nav as="nav" aria-label="Main" className="ms-auto align-items-xl-center">
                 {signedIn ? (
                   <>
                     <Nav.Link as={NavLink} to={paths.home.getHref()} end>
                       Dashboard
                     </Nav.Link>
+                    {guildMenus.map((menu) => (
+                      <NavDropdown
+                        key={menu.label}
+                        title={menu.label}
+                        id={`menu-${menu.label.toLowerCase().replace(/[^a-z0-9]+/g, '-')}`}
+                        active={menu.links.some((l) => location.pathname.startsWith(l.to))}
+                      >
+                        {menu.links.map((link) => (
+                          <NavDropdown.Item key={link.to} as={NavLink} to={link.to} end={link.end}>
+                            {link.label}
+                          </NavDropdown.Item>
+                        ))}
+                      </NavDropdown>
+                    ))}
                     {guildLinks.map((link) => (
                       <Nav.Link key={link.to} as={NavLink} to={link.to} end={link.end}>
                         {link.label}
