@@ -583,21 +583,10 @@ export class DuesLedgerService {
       const label = yearLabelOf(quote, settings);
       const openKey = `${me.id}:${label}:${plan.id}`;
       const open = await tx.find(DuesInvoice, { membership: me.id, status: 'open', purpose: 'dues' }, { populate: ['guild', 'membership.user', 'plan'], orderBy: { id: 'asc' } });
-      let invoice = open.find((i) => i.openKey === openKey && i.totalCents === quote.totalCents && sameLines(i.lines, quote.lines)) ?? null;
-      for (const other of open.filter((i) => i !== invoice)) {
-        if (await this.closeOpenInvoice(tx, other, standing, me, actorName, 'replaced by a new invoice at checkout'))
-          return { justPaid: other.receiptNumber! };
-      }
-      if (invoice?.checkoutSessionId) {
-        const session = await this.gateway.retrieveSession(invoice.checkoutSessionId);
-        if (session.status === 'open' && session.url) return { invoiceId: invoice.id, url: session.url };
-        if (session.payment_status === 'paid') {
-          await this.markPaid(tx, invoice, standing, this.cardSettlement(invoice, session));
-          return { justPaid: invoice.receiptNumber! };
-        }
-        invoice.checkoutSessionId = null;
-        invoice.checkoutUrl = null;
-      }
+      const kept = open.find((i) => i.openKey === openKey && i.totalCents === quote.totalCents && sameLines(i.lines, quote.lines)) ?? null;
+      const reuse = await this.reuseOpenInvoice(tx, open, kept, standing, me, actorName);
+      if (reuse.done) return reuse.done;
+      let invoice = reuse.invoice;
       if (!invoice) {
         invoice = tx.create(DuesInvoice, {
           guild: guild.id,
@@ -628,6 +617,36 @@ export class DuesLedgerService {
     if ('justPaid' in result)
       throw new ConflictException(`Your payment has just gone through (receipt ${result.justPaid}). There is nothing more to pay.`);
     return result;
+  }
+
+  /**
+   * Checkout's first step: every open invoice but `kept` is closed (its session expired, or settled if
+   * it turns out paid); `kept` answers with its session while that is still open, is settled if its
+   * session was paid, and otherwise loses the dead session so a new one is made.
+   */
+  private async reuseOpenInvoice(
+    tx: EntityManager,
+    open: DuesInvoice[],
+    kept: DuesInvoice | null,
+    standing: DuesStanding,
+    me: Membership,
+    actorName: string,
+  ): Promise<{ done: { justPaid: string } | { invoiceId: number; url: string } | null; invoice: DuesInvoice | null }> {
+    for (const other of open.filter((i) => i !== kept)) {
+      if (await this.closeOpenInvoice(tx, other, standing, me, actorName, 'replaced by a new invoice at checkout'))
+        return { done: { justPaid: other.receiptNumber! }, invoice: null };
+    }
+    if (kept?.checkoutSessionId) {
+      const session = await this.gateway.retrieveSession(kept.checkoutSessionId);
+      if (session.status === 'open' && session.url) return { done: { invoiceId: kept.id, url: session.url }, invoice: kept };
+      if (session.payment_status === 'paid') {
+        await this.markPaid(tx, kept, standing, this.cardSettlement(kept, session));
+        return { done: { justPaid: kept.receiptNumber! }, invoice: kept };
+      }
+      kept.checkoutSessionId = null;
+      kept.checkoutUrl = null;
+    }
+    return { done: null, invoice: kept };
   }
 
   /** A new Checkout Session for an open invoice (its lines as the items), in the caller's transaction. */
@@ -683,21 +702,11 @@ export class DuesLedgerService {
       const lines = await charge.linesFor(tx);
       const totalCents = lines.reduce((n, l) => n + l.amountCents, 0);
       const open = await tx.find(DuesInvoice, { membership: me.id, status: 'open', openKey: charge.openKey }, { populate: ['guild', 'membership.user', 'plan'] });
-      let invoice = open.find((i) => i.totalCents === totalCents && sameLines(i.lines, lines)) ?? null;
-      for (const other of open.filter((i) => i !== invoice)) {
-        if (await this.closeOpenInvoice(tx, other, standing, me, actorName, 'replaced by a new invoice at checkout')) return { justPaid: other.receiptNumber! };
-      }
+      const kept = totalCents > 0 ? (open.find((i) => i.totalCents === totalCents && sameLines(i.lines, lines)) ?? null) : null;
+      const reuse = await this.reuseOpenInvoice(tx, open, kept, standing, me, actorName);
+      if (reuse.done) return reuse.done;
       if (totalCents <= 0) return { nothing: true as const };
-      if (invoice?.checkoutSessionId) {
-        const session = await this.gateway.retrieveSession(invoice.checkoutSessionId);
-        if (session.status === 'open' && session.url) return { invoiceId: invoice.id, url: session.url };
-        if (session.payment_status === 'paid') {
-          await this.markPaid(tx, invoice, standing, this.cardSettlement(invoice, session));
-          return { justPaid: invoice.receiptNumber! };
-        }
-        invoice.checkoutSessionId = null;
-        invoice.checkoutUrl = null;
-      }
+      let invoice = reuse.invoice;
       if (!invoice) {
         invoice = tx.create(DuesInvoice, {
           guild: guild.id,

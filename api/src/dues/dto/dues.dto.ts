@@ -14,9 +14,9 @@ import {
   MaxLength,
   Min,
   ValidateIf,
-  ValidateBy,
   ValidateNested,
 } from 'class-validator';
+import { IsId } from '../../common/validators/is-id';
 import { INVOICE_STATUSES, PAYMENT_METHODS, type InvoiceStatus, type PaymentMethod } from '../dues-invoice.entity';
 import { PLAN_KINDS } from '../dues-plan.entity';
 import type { PlanKind } from '../dues-rules';
@@ -37,9 +37,6 @@ const cents = (what: string, min: number) => [
   Max(MAX_AMOUNT_CENTS, { message: `${what[0].toUpperCase()}${what.slice(1)} must be at most ${MAX_AMOUNT_CENTS} cents.` }),
 ];
 
-/** A database id: a whole number above 0, with one message for anything else. */
-const IsId = (message: string) =>
-  ValidateBy({ name: 'isId', validator: { validate: (v: unknown) => Number.isSafeInteger(v) && (v as number) > 0, defaultMessage: () => message } });
 
 export class ProrationBandDto {
   @ApiProperty({ minimum: 1, maximum: 12 })

@@ -16,11 +16,11 @@ import {
   Max,
   MaxLength,
   Min,
-  ValidateBy,
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
 import { IsInches } from '../../common/units/inches';
+import { IsId } from '../../common/validators/is-id';
 import { SIZE_RULE_KINDS, type SizeRuleKind } from '../show-category.entity';
 import { RANKED_METHODS, type RankedMethod, VOTING_KINDS, type VotingKind } from '../show.entity';
 
@@ -28,8 +28,6 @@ const DATE = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
 const dateMessage = 'Write the date as yyyy-mm-dd, like 2027-05-14.';
 const MAX_FEE_CENTS = 100_000;
 
-const IsId = (message: string) =>
-  ValidateBy({ name: 'isId', validator: { validate: (v: unknown) => Number.isSafeInteger(v) && (v as number) > 0, defaultMessage: () => message } });
 const optionalNumber = (min: number, max: number, message: string): PropertyDecorator => (target, key) => {
   IsOptional()(target, key);
   ValidateIf((_, v) => v !== null)(target, key);

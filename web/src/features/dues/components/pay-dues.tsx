@@ -1,4 +1,4 @@
-import { useId, useRef, useState } from 'react';
+import { useId, useState } from 'react';
 import Button from 'react-bootstrap/Button';
 import Form from 'react-bootstrap/Form';
 import Spinner from 'react-bootstrap/Spinner';
@@ -8,7 +8,7 @@ import { hasCharge, type MyDues } from '../api/get-my-dues';
 import { useStartCheckout } from '../api/start-checkout';
 import { formatDay } from '../lib/format';
 import { formatMoney } from '../lib/money';
-import { goToPaymentPage } from '../lib/redirect';
+import { usePaymentHandoff } from '../lib/use-payment-handoff';
 import { QuoteLines } from './quote-lines';
 
 type PayDuesProps = {
@@ -34,8 +34,8 @@ export function PayDues({ guildId, dues, plans, currency }: PayDuesProps) {
   const otherPlan = planId !== null && exact === null;
   const chosen = choices.find((p) => p.id === planId) ?? null;
   const checkout = useStartCheckout(guildId);
-  const leaving = useRef(false);
-  const [redirecting, setRedirecting] = useState(false);
+  const handoff = usePaymentHandoff<number>((id, callbacks) => checkout.mutate(id, callbacks));
+  const redirecting = handoff.redirecting;
   const legendId = useId();
   const coversId = useId();
 
@@ -46,18 +46,7 @@ export function PayDues({ guildId, dues, plans, currency }: PayDuesProps) {
   const settled = Boolean(dues.quote && !hasCharge(dues.quote) && planId === ownPlanId);
 
   const pay = () => {
-    // One payment page per press, however many times the button is pressed.
-    if (planId === null || leaving.current) return;
-    leaving.current = true;
-    checkout.mutate(planId, {
-      onSuccess: ({ url }) => {
-        setRedirecting(true);
-        goToPaymentPage(url);
-      },
-      onError: () => {
-        leaving.current = false;
-      },
-    });
+    if (planId !== null) handoff.start(planId);
   };
 
   return (

@@ -1,9 +1,8 @@
-import { useRef, useState } from 'react';
 import Button from 'react-bootstrap/Button';
 import Card from 'react-bootstrap/Card';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { formatMoney } from '@/features/dues/lib/money';
-import { goToPaymentPage } from '@/features/dues/lib/redirect';
+import { usePaymentHandoff } from '@/features/dues/lib/use-payment-handoff';
 import { useEntryFees, usePayEntryFees } from '../api/entry-fees';
 
 /**
@@ -13,25 +12,12 @@ import { useEntryFees, usePayEntryFees } from '../api/entry-fees';
 export function EntryFeesPanel({ guildId, showId, hasEntries }: { guildId: string; showId: string; hasEntries: boolean }) {
   const fees = useEntryFees(guildId, showId, { enabled: hasEntries });
   const pay = usePayEntryFees(guildId, showId);
-  const leaving = useRef(false);
-  const [redirecting, setRedirecting] = useState(false);
+  const { start: handoff, redirecting } = usePaymentHandoff<void>((_, callbacks) => pay.mutate(undefined, callbacks));
   const f = fees.data;
   if (!hasEntries || !f || !f.feeText) return null;
   const money = (cents: number) => formatMoney(cents, f.currency);
 
-  const start = () => {
-    if (leaving.current) return;
-    leaving.current = true;
-    pay.mutate(undefined, {
-      onSuccess: ({ url }) => {
-        setRedirecting(true);
-        goToPaymentPage(url);
-      },
-      onError: () => {
-        leaving.current = false;
-      },
-    });
-  };
+  const start = () => handoff(undefined);
 
   return (
     <Card as="section" aria-labelledby="fees-heading" className="mb-4" data-testid="entry-fees">
