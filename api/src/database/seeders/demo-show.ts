@@ -11,6 +11,9 @@ import { ShowCategory } from '../../shows/show-category.entity';
 import { ShowEntry, type EntryStatus } from '../../shows/show-entry.entity';
 import { Show } from '../../shows/show.entity';
 import { USUAL_PERIMETER_BANDS } from '../../shows/size-rules';
+import { appConfig, type AppConfig } from '../../config/app.config';
+import { LocalDiskFileStore } from '../../storage/file-store';
+import { quiltPhoto } from './demo-quilt-photos';
 
 const mm = (inches: number) => roundMm(inchesToMm(inches));
 
@@ -122,7 +125,7 @@ export async function seedDemoShows(em: EntityManager, guild: Guild, people: Map
     entryFeeCapCents: 2500,
     createdBy: chair,
   });
-  addEntries(em, spring, addCategories(em, spring, true), SPRING_ENTRIES, people, false);
+  const springEntries = addEntries(em, spring, addCategories(em, spring, true), SPRING_ENTRIES, people, false);
 
   const closed = today.minus({ months: 2 }).set({ hour: 16, minute: 0 });
   const autumn = em.create(Show, {
@@ -141,6 +144,13 @@ export async function seedDemoShows(em: EntityManager, guild: Guild, people: Map
   });
   const autumnCategories = addCategories(em, autumn, false);
   const entries = addEntries(em, autumn, autumnCategories, AUTUMN_ENTRIES, people, true);
+  // Every quilt but one has a photo (the one without shows how the ballot looks without).
+  const files = new LocalDiskFileStore(appConfig() as AppConfig);
+  for (const entry of [...springEntries.slice(1), ...entries]) {
+    const photo = await quiltPhoto(entry.title, entry.widthMm / 25.4, entry.heightMm / 25.4);
+    entry.photoKey = await files.put(photo.display);
+    entry.photoThumbKey = await files.put(photo.thumb);
+  }
   await em.flush();
 
   // 60 visitor cards (48 used) and 14 members voted; a fixed pattern, so the demo's results are stable.
