@@ -253,6 +253,34 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     ]);
   });
 
+  it('opens and closes by the schedule: the first ballot page numbers the quilts, and ballots after the closing time are refused', async () => {
+    const s = await createScenario(t);
+    const chair = await signIn(t, s.showChair.email);
+    const member = await signIn(t, s.member.email);
+    const g = s.guild.id;
+    const show = await setUpShow(chair, g);
+    const base = `/api/guilds/${g}/shows/${show.showId}`;
+    const a = await acceptedEntry(chair, g, show.showId, show.medium, 'Dawn Chorus');
+    const soon = new Date(Date.now() + 60_000).toISOString();
+    const bad = await chair.patch(base).send({ votingOpensAt: soon, votingClosesAt: new Date(Date.now() + 30_000).toISOString() }).expect(400);
+    expect(bad.body.errors.votingClosesAt).toEqual(['Voting must close after it opens.']);
+    expect((await chair.patch(base).send({ votingOpensAt: soon }).expect(200)).body.votingState).toBe('scheduled');
+    await member.post(`${base}/ballot`).send({ choices: { categories: { [show.medium]: [a] } } }).expect(409);
+    // Opening time reached (set just past), closing a few seconds away.
+    await chair.patch(base).send({ votingOpensAt: new Date(Date.now() - 1000).toISOString(), votingClosesAt: new Date(Date.now() + 4000).toISOString() }).expect(200);
+    const ballot = (await member.get(`${base}/ballot`).expect(200)).body;
+    expect(ballot.show.votingState).toBe('open');
+    expect(ballot.categories[0].entries[0].entryNumber).toBe(1);
+    expect((await chair.get(base).expect(200)).body.votingOpenedAt).not.toBeNull();
+    await chair.patch(base).send({ votingKind: 'approval' }).expect(409);
+    await member.post(`${base}/ballot`).send({ choices: { categories: { [show.medium]: [a] } } }).expect(201);
+    await new Promise((r) => setTimeout(r, 4500));
+    const late = await signIn(t, s.treasurer.email);
+    const refused = await late.post(`${base}/ballot`).send({ choices: { categories: { [show.medium]: [a] } } }).expect(409);
+    expect(refused.body.message).toContain('has closed');
+    expect((await chair.get(`${base}/results`).expect(200)).body.categories[0].standings[0]).toMatchObject({ title: 'Dawn Chorus', score: 1, ribbon: 1 });
+  });
+
   it('takes 200 ballots fired at once, including the same member and the same code ten times each: each voter counted once, every duplicate a 409', async () => {
     const { s, chair, base, showId, medium, m, g } = await world();
     await chair.post(`${base}/voting/codes`).send({ count: 150 }).expect(201);

@@ -79,7 +79,25 @@ export class VotingService {
       };
     };
     if (votingState(show) !== 'open') return build();
+    if (!show.votingOpenedAt) await this.openedBySchedule(show);
     return this.openDefinition(show.id, build);
+  }
+
+  /**
+   * The schedule opened voting with nobody pressing "Open": the first request to see it records the
+   * opening and numbers the accepted quilts, as opening by hand does (under the show's lock, once).
+   */
+  private async openedBySchedule(show: Show): Promise<void> {
+    await withTransaction(this.em, async (tx) => {
+      await tx.execute('SELECT id FROM shows WHERE id = ? FOR UPDATE', [show.id]);
+      const fresh = await tx.findOneOrFail(Show, { id: show.id }, { refresh: true, populate: ['guild'] });
+      if (fresh.votingOpenedAt || votingState(fresh) !== 'open') return;
+      await this.entries.assignNumbers(tx, fresh);
+      fresh.votingOpenedAt = fresh.votingOpensAt ?? new Date();
+      await tx.flush();
+    });
+    const after = await this.em.fork().findOneOrFail(Show, { id: show.id });
+    show.votingOpenedAt = after.votingOpenedAt;
   }
 
   /** The cached definition of a show whose voting is open (its kind, categories and entries are frozen). */
