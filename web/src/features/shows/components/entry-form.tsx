@@ -140,8 +140,8 @@ function StoryHelp({ length }: { length: number }) {
   const over = length - STORY_MAX;
   return (
     <span data-testid="story-count" className={over > 0 ? 'text-danger fw-bold' : undefined}>
-      {over > 0 ? `${length} of ${STORY_MAX} characters: ${over} too many.` : `${length} of ${STORY_MAX} characters.`} Shown beside your quilt
-      and on its hang tag.
+      {over > 0 ? `${length} of ${STORY_MAX} characters: ${over} too many.` : `${length} of ${STORY_MAX} characters.`} The show chair
+      keeps it with your entry, to read out or show beside your quilt.
     </span>
   );
 }
