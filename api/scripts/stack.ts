@@ -254,6 +254,9 @@ async function test() {
     LOG_LEVEL: 'warn',
     SESSION_SECRET: randomBytes(32).toString('hex'),
     OUTBOX_POLL_MS: '100',
+    // The tests call the bees' tick with a chosen clock; a background tick holding the named lock at
+    // the same moment would make theirs a no-op.
+    BEES_SCHEDULER_ENABLED: 'false',
     // jimp's CommonJS build imports an ES module on demand, which jest allows only with this flag.
     NODE_OPTIONS: `${process.env.NODE_OPTIONS ?? ''} --experimental-vm-modules`.trim(),
   });
