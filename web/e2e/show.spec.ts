@@ -133,4 +133,23 @@ test('the show chair sees turnout but no standings, closes voting and publishes 
   await expect(medium.getByTestId('standing').first().getByTestId('ribbon')).toContainText('1st');
   await expect(page.getByTestId('audit-text')).toContainText('Member ballots: 1. Ballots cast: 2.');
   await shootBothWidths(page, 'show-results');
+  await page.goto(`${showPath}/voting`);
+  await expect(page.getByTestId('published')).toBeVisible();
+  await shootBothWidths(page, 'show-ballot-desk-closed');
+  await page.goto(`${showPath}/settings`);
+  await expect(page.getByRole('heading', { level: 1, name: 'Show settings' })).toBeVisible();
+  await shootBothWidths(page, 'show-settings');
+});
+
+test('a member reads last autumn\'s published results and their ribbons', async ({ page }) => {
+  await signIn(page, MEMBER);
+  await openShow(page);
+  await page.goto(showPath.replace(/\/shows\/\d+$/, '/shows'));
+  await page.getByRole('link', { name: 'Autumn Harvest Show' }).first().click();
+  await page.getByRole('link', { name: 'See the results' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Viewer’s choice results' })).toBeVisible();
+  // A tie for 1st in Medium: both share the ribbon.
+  const medium = page.getByTestId('result-category').filter({ hasText: 'Medium' });
+  await expect(medium.getByTestId('ribbon').filter({ hasText: '1st' })).toHaveCount(2);
+  await shootBothWidths(page, 'show-results-member');
 });
