@@ -90,6 +90,7 @@ const ACCESS: Record<string, Access> = {
   'GET /api/guilds/:guildId/dues/households': ['treasurer'],
   'POST /api/guilds/:guildId/dues/households': ['treasurer'],
   'GET /api/guilds/:guildId/dues/audit': ['treasurer'],
+  'POST /api/guilds': 'signed-in',
   'GET /api/guilds/:guildId/shows': 'member',
   'POST /api/guilds/:guildId/shows': ['show_chair'],
   'GET /api/guilds/:guildId/shows/:showId': 'member',

@@ -1,10 +1,24 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Patch } from '@nestjs/common';
+import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import { CurrentMembership } from '../common/decorators/current-user.decorator';
+import type { SessionUser } from '../auth/session-user';
+import { CurrentMembership, CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
+import { CreateGuildDto } from './dto/create-guild.dto';
 import { UpdateRolesDto } from './dto/update-roles.dto';
 import { GuildsService } from './guilds.service';
 import { Membership } from './membership.entity';
+
+/** Starting a guild: anyone signed in, who becomes its first admin. */
+@ApiTags('guilds')
+@Controller('guilds')
+export class NewGuildController {
+  constructor(private readonly guilds: GuildsService) {}
+
+  @Post()
+  create(@CurrentUser() user: SessionUser, @Body() body: CreateGuildDto) {
+    return this.guilds.create(user.id, body);
+  }
+}
 
 @ApiTags('guilds')
 @Controller('guilds/:guildId')

@@ -1,6 +1,6 @@
 import { Module } from '@nestjs/common';
-import { GuildsController } from './guilds.controller';
+import { GuildsController, NewGuildController } from './guilds.controller';
 import { GuildsService } from './guilds.service';
 
-@Module({ controllers: [GuildsController], providers: [GuildsService] })
+@Module({ controllers: [NewGuildController, GuildsController], providers: [GuildsService] })
 export class GuildsModule {}

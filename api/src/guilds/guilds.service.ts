@@ -1,6 +1,8 @@
 import { LockMode } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { CreateGuildDto } from './dto/create-guild.dto';
+import { Guild } from './guild.entity';
 import { Membership } from './membership.entity';
 import { leavesGuildWithoutAdmin, normaliseRoles, ROSTER_OFFICERS, hasAnyRole, type Role } from './roles';
 
@@ -16,6 +18,31 @@ export interface MemberRow {
 @Injectable()
 export class GuildsService {
   constructor(private readonly em: EntityManager) {}
+
+  /**
+   * A new guild with its creator as admin, in one transaction. At most 5 new guilds per person a day,
+   * so a script cannot fill the database with empty guilds.
+   */
+  async create(userId: number, dto: CreateGuildDto) {
+    return this.em.transactional(async (em) => {
+      const rows: { n: number }[] = await em.execute(
+        "SELECT COUNT(*) AS n FROM memberships WHERE user_id = ? AND created_at > ? AND JSON_CONTAINS(roles, '\"admin\"')",
+        [userId, new Date(Date.now() - 24 * 3600 * 1000)],
+      );
+      if (Number(rows[0].n) >= 5) throw new ConflictException('You have started 5 guilds today. Please try again tomorrow.');
+      const guild = em.create(Guild, {
+        name: dto.name.trim(),
+        town: dto.town.trim(),
+        timeZone: dto.timeZone,
+        currency: dto.currency,
+        unit: dto.unit,
+        yearStartMonth: dto.yearStartMonth,
+      });
+      const membership = em.create(Membership, { user: userId, guild, roles: ['admin'] });
+      await em.flush();
+      return { id: guild.id, name: guild.name, town: guild.town, timeZone: guild.timeZone, currency: guild.currency, unit: guild.unit, yearStartMonth: guild.yearStartMonth, myRoles: membership.roles, myMembershipId: membership.id };
+    });
+  }
 
   async listMembers(viewer: Membership): Promise<MemberRow[]> {
     const officer = hasAnyRole(viewer.roles, ROSTER_OFFICERS);
