@@ -39,6 +39,7 @@ export const routes: RouteObject[] = [
             element: <Protected />,
             children: [
               { path: paths.home.path, lazy: lazyRoute(() => import('./routes/dashboard')) },
+              { path: paths.newGuild.path, lazy: lazyRoute(() => import('./routes/guild-new')) },
               { path: paths.members.path, lazy: lazyRoute(() => import('./routes/members')) },
               { path: paths.bees.path, lazy: lazyRoute(() => import('./routes/bees')) },
               { path: paths.bee.path, lazy: lazyRoute(() => import('./routes/bee')) },

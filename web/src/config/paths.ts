@@ -26,6 +26,10 @@ export const paths = {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   },
+  newGuild: {
+    path: '/guilds/new',
+    getHref: () => '/guilds/new',
+  },
   members: {
     path: '/guilds/:guildId/members',
     getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/members`,

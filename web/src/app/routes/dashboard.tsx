@@ -1,6 +1,7 @@
 import Card from 'react-bootstrap/Card';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
+import { Link } from 'react-router-dom';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { usePageTitle } from '@/components/ui/page-title';
@@ -10,8 +11,6 @@ import { GuildCard } from '@/features/dashboard/components/guild-card';
 import { OwedBlocks } from '@/features/dashboard/components/owed-blocks';
 import { DuesCard } from '@/features/dues/components/dues-card';
 import { useUser } from '@/lib/auth';
-
-const comingSoon = [{ title: 'Quilt show — coming soon', text: 'Entering quilts and volunteering for the show will appear here.' }];
 
 export default function DashboardRoute() {
   usePageTitle('Dashboard');
@@ -34,7 +33,7 @@ export default function DashboardRoute() {
         {dashboard.isPending && <PageSpinner label="Loading your guilds" />}
         {dashboard.isError && <ErrorAlert error={dashboard.error} />}
         {dashboard.data && dashboard.data.guilds.length === 0 && (
-          <p>You are not a member of any guild yet. When a guild officer invites you, the e-mail will bring you here.</p>
+          <p>You are not a member of any guild yet. When a guild officer invites you, the e-mail will bring you here; or start a guild of your own below.</p>
         )}
         {dashboard.data && dashboard.data.guilds.length > 0 && (
           <Row xs={1} md={2} xl={3} className="g-3">
@@ -75,22 +74,18 @@ export default function DashboardRoute() {
         {dashboard.data && <OwedBlocks owed={dashboard.data.owed ?? []} />}
       </section>
 
-      <section aria-labelledby="later" className="mb-3">
-        <h2 id="later" className="mb-3">
-          On the way
+      <section aria-labelledby="new-guild-heading" className="mb-3">
+        <h2 id="new-guild-heading" className="mb-3">
+          Start a guild
         </h2>
-        <Row xs={1} md={2} className="g-3">
-          {comingSoon.map((item) => (
-            <Col key={item.title}>
-              <Card className="coming-soon h-100">
-                <Card.Body>
-                  <h3 className="h5">{item.title}</h3>
-                  <p className="mb-0 text-body-secondary">{item.text}</p>
-                </Card.Body>
-              </Card>
-            </Col>
-          ))}
-        </Row>
+        <Card className="h-100">
+          <Card.Body>
+            <p>Running a guild that is not on Selvage yet? Start it here and invite its members; you will be its admin.</p>
+            <Link to={paths.newGuild.getHref()} className="btn btn-outline-primary">
+              Start a new guild
+            </Link>
+          </Card.Body>
+        </Card>
       </section>
     </>
   );

@@ -1,9 +1,10 @@
+import Alert from 'react-bootstrap/Alert';
 import { useState } from 'react';
 import Card from 'react-bootstrap/Card';
 import Form from 'react-bootstrap/Form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
-import { useParams } from 'react-router-dom';
+import { useParams, useLocation } from 'react-router-dom';
 import { NotFound } from '@/components/errors/not-found';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -20,6 +21,7 @@ import { PendingInvitations } from '@/features/members/components/pending-invita
 import { isApiError } from '@/lib/api-client';
 
 export default function MembersRoute() {
+  const notice = (useLocation().state as { notice?: string } | null)?.notice;
   const { guildId = '' } = useParams();
   const guild = useGuild(guildId);
   const members = useMembers(guildId);
@@ -53,6 +55,11 @@ export default function MembersRoute() {
       <div className="page-header">
         <h1>{guild.data.name} members</h1>
         <p className="lead mb-0">{guild.data.town}</p>
+        {notice && (
+          <Alert variant="success" role="status" className="fs-5 mt-3 mb-0">
+            {notice}
+          </Alert>
+        )}
         {canInvite && (
           <a href="#invite-member" className="btn btn-outline-primary mt-3">
             Jump to the invitation form
