@@ -7,6 +7,8 @@ import { ChildProcess, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { connect } from 'node:net';
+import { BackupError, restoreBackup, takeBackup } from '../src/database/backup';
 import { ensureAptPackage, startMariaDb, type RunningMariaDb } from './mariadb';
 
 const ROOT = resolve(__dirname, '..', '..');
@@ -326,7 +328,58 @@ async function bench() {
   await mustRun('ballot bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-ballots.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
 }
 
-const commands: Record<string, () => Promise<void>> = { start, dev, test, bench };
+
+/** Is something listening on 127.0.0.1:port (the app's MariaDB, say)? */
+function listening(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = connect({ host: '127.0.0.1', port });
+    socket.once('connect', () => (socket.destroy(), resolve(true)));
+    socket.once('error', () => resolve(false));
+  });
+}
+
+/**
+ * `npm run backup`: a consistent dump of the app's database (taken while it runs, if it does) and
+ * the uploaded files, in backups/selvage-<UTC time>/ (BACKUP_DIR to put it elsewhere).
+ */
+async function backup() {
+  const port = Number(process.env.DB_PORT ?? 3407);
+  if (!existsSync(join(DATA, 'db-password'))) throw new Error('There is no Selvage data here to back up (run npm start first).');
+  const password = persistentSecret(join(DATA, 'db-password'));
+  if (!(await listening(port))) await startDatabase(join(DATA, 'db'), port, 'selvage', password, false);
+  const outDir = process.env.BACKUP_DIR ?? join(ROOT, 'backups');
+  const { folder, manifest } = await takeBackup({
+    db: { host: '127.0.0.1', port, user: 'selvage', password, database: 'selvage' },
+    uploadsDir: process.env.UPLOADS_DIR ?? join(DATA, 'uploads'),
+    outDir,
+  });
+  log(`backup written: ${folder} (database ${(manifest.database.bytes / 1e6).toFixed(1)} MB, ${manifest.files.length} files)`);
+}
+
+/** `npm run restore FOLDER`: into an empty database, with Selvage stopped. */
+async function restore() {
+  const folder = process.argv[3] ? resolve(process.argv[3]) : '';
+  if (!folder) throw new Error('usage: npm run restore -- FOLDER (a folder written by npm run backup)');
+  const port = Number(process.env.DB_PORT ?? 3407);
+  if (await listening(port)) throw new Error(`Something is using port ${port}: stop Selvage (Ctrl-C in its terminal) before restoring.`);
+  mkdirSync(DATA, { recursive: true });
+  const password = persistentSecret(join(DATA, 'db-password'));
+  const db = await startDatabase(join(DATA, 'db'), port, 'selvage', password, false);
+  try {
+    const manifest = await restoreBackup({
+      db: { host: '127.0.0.1', port, user: 'selvage', password, database: 'selvage' },
+      uploadsDir: process.env.UPLOADS_DIR ?? join(DATA, 'uploads'),
+      folder,
+      countTables: async () => Number(db.sql("SELECT COUNT(*) FROM information_schema.tables WHERE table_schema = 'selvage'").trim()),
+    });
+    log(`restored the backup of ${manifest.createdAt} (${manifest.files.length} files). Start Selvage with npm start.`);
+  } catch (e) {
+    if (e instanceof BackupError) throw new Error(e.message);
+    throw e;
+  }
+}
+
+const commands: Record<string, () => Promise<void>> = { start, dev, test, bench, backup, restore };
 const command = process.argv[2] ?? '';
 if (!commands[command]) {
   console.error(`usage: stack.ts ${Object.keys(commands).join('|')}`);
