@@ -21,6 +21,7 @@ import { LayoutModule } from './layout/layout.module';
 import { RoundsModule } from './rounds/rounds.module';
 import { SizeCheckModule } from './size-check/size-check.module';
 import { ShowsModule } from './shows/shows.module';
+import { MailPreferencesModule } from './mail-preferences/mail-preferences.module';
 import { StorageModule } from './storage/storage.module';
 import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
@@ -62,6 +63,7 @@ import { ProfileModule } from './profile/profile.module';
     SizeCheckModule,
     DuesModule,
     ShowsModule,
+    MailPreferencesModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

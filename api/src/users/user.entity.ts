@@ -2,7 +2,7 @@ import { Entity, Property, Unique } from '@mikro-orm/core';
 import { BaseEntity } from '../database/base.entity';
 
 @Entity({ tableName: 'users' })
-export class User extends BaseEntity {
+export class User extends BaseEntity<'remindersOff'> {
   /** Stored lower-cased and trimmed; one account per address. */
   @Property({ type: 'string', length: 254 })
   @Unique()
@@ -16,4 +16,8 @@ export class User extends BaseEntity {
 
   @Property({ type: 'datetime', length: 3, nullable: true })
   lastSignInAt?: Date | null;
+
+  /** She turned reminder e-mails off (profile page or a one-click link); transactional mail still goes. */
+  @Property({ type: 'boolean' })
+  remindersOff: boolean = false;
 }
