@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { PHONE, newPerson, shootBothWidths, signIn, uniqueEmail, inviteNewEmail, acceptAsNewPerson } from './support';
+import { PHONE, acceptAsNewPerson, inviteNewEmail, newPerson, shootBothWidths, uniqueEmail } from './support';
 
 test.use({ viewport: PHONE });
 

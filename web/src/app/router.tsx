@@ -29,6 +29,7 @@ export const routes: RouteObject[] = [
       { path: paths.forgotPassword.path, lazy: lazyRoute(() => import('./routes/forgot-password')) },
       { path: paths.resetPassword.path, lazy: lazyRoute(() => import('./routes/reset-password')) },
       { path: paths.invitation.path, lazy: lazyRoute(() => import('./routes/invitation')) },
+      { path: paths.unsubscribe.path, lazy: lazyRoute(() => import('./routes/unsubscribe')) },
       // Visitors at a show vote with the code on a ballot card, without an account.
       { path: showPaths.visitorVote.path, lazy: lazyRoute(() => import('./routes/vote')) },
       { path: showPaths.visitorBallot.path, lazy: lazyRoute(() => import('./routes/vote-ballot')) },

@@ -26,6 +26,10 @@ export const paths = {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   },
+  unsubscribe: {
+    path: '/unsubscribe',
+    getHref: () => '/unsubscribe',
+  },
   newGuild: {
     path: '/guilds/new',
     getHref: () => '/guilds/new',

@@ -1,4 +1,5 @@
 import Card from 'react-bootstrap/Card';
+import { MailPreferencesForm } from '@/features/mail-preferences/components/mail-preferences-form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
 import { ErrorAlert } from '@/components/ui/error-alert';
@@ -47,6 +48,14 @@ export default function ProfileRoute() {
                 Password
               </h2>
               <ChangePasswordForm />
+            </Card.Body>
+          </Card>
+          <Card as="section" aria-labelledby="mail-heading" className="mt-4">
+            <Card.Body>
+              <h2 id="mail-heading" className="h3 mb-3">
+                E-mails
+              </h2>
+              <MailPreferencesForm />
             </Card.Body>
           </Card>
         </Col>
