@@ -11,6 +11,8 @@ export interface MemberRow {
   name: string;
   roles: Role[];
   email?: string;
+  phone?: string | null;
+  town?: string | null;
   status?: string;
   joinedAt?: Date;
 }
@@ -52,8 +54,15 @@ export class GuildsService {
       { populate: ['user'], orderBy: { user: { name: 'asc' } } },
     );
     return memberships.map((m) => {
-      const row: MemberRow = { membershipId: m.id, name: m.user.name, roles: m.roles };
-      if (officer) Object.assign(row, { email: m.user.email, status: m.status, joinedAt: m.joinedAt });
+      const u = m.user;
+      const row: MemberRow = { membershipId: m.id, name: u.name, roles: m.roles };
+      // Officers who keep the roster see every contact detail; other members see what each chose to show.
+      if (officer) Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt });
+      else {
+        if (u.showEmail) row.email = u.email;
+        if (u.showPhone && u.phone) row.phone = u.phone;
+        if (u.showTown && u.town) row.town = u.town;
+      }
       return row;
     });
   }

@@ -1,9 +1,9 @@
-import { Body, Controller, Get, HttpCode, Patch, Post, Req } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Patch, Post, Put, Req } from '@nestjs/common';
 import type { Request } from 'express';
 import { ApiTags } from '@nestjs/swagger';
 import type { SessionUser } from '../auth/session-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
-import { ChangeEmailDto, ChangePasswordDto, UpdateProfileDto } from './dto/profile.dto';
+import { ChangeEmailDto, ChangePasswordDto, DirectoryDetailsDto, UpdateProfileDto } from './dto/profile.dto';
 import { ProfileService } from './profile.service';
 
 @ApiTags('profile')
@@ -19,6 +19,16 @@ export class ProfileController {
   @Patch()
   update(@CurrentUser() user: SessionUser, @Body() body: UpdateProfileDto) {
     return this.profile.rename(user.id, body.name);
+  }
+
+  @Get('directory')
+  directory(@CurrentUser() user: SessionUser) {
+    return this.profile.directory(user.id);
+  }
+
+  @Put('directory')
+  setDirectory(@CurrentUser() user: SessionUser, @Body() body: DirectoryDetailsDto) {
+    return this.profile.setDirectory(user.id, body);
   }
 
   @Post('email')

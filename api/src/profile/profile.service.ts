@@ -19,6 +19,22 @@ export class ProfileService {
     return this.toDto(await this.em.findOneOrFail(User, { id }));
   }
 
+  async directory(id: number) {
+    const u = await this.em.findOneOrFail(User, { id });
+    return { phone: u.phone ?? null, town: u.town ?? null, showEmail: u.showEmail, showPhone: u.showPhone, showTown: u.showTown };
+  }
+
+  async setDirectory(id: number, d: { phone?: string | null; town?: string | null; showEmail: boolean; showPhone: boolean; showTown: boolean }) {
+    const u = await this.em.findOneOrFail(User, { id });
+    u.phone = d.phone?.trim() || null;
+    u.town = d.town?.trim() || null;
+    u.showEmail = d.showEmail;
+    u.showPhone = d.showPhone;
+    u.showTown = d.showTown;
+    await this.em.flush();
+    return this.directory(id);
+  }
+
   async rename(id: number, name: string): Promise<SessionUser> {
     const user = await this.em.findOneOrFail(User, { id });
     user.name = name.trim();

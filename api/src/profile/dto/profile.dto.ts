@@ -1,5 +1,5 @@
 import { ApiProperty } from '@nestjs/swagger';
-import { IsEmail, IsNotEmpty, IsString, MaxLength } from 'class-validator';
+import { IsBoolean, IsEmail, IsNotEmpty, IsOptional, IsString, Matches, MaxLength, ValidateIf } from 'class-validator';
 import { NewPassword } from '../../auth/dto/password-fields';
 
 export class UpdateProfileDto {
@@ -33,4 +33,33 @@ export class ChangePasswordDto {
   @ApiProperty()
   @NewPassword()
   newPassword!: string;
+}
+
+/** Her contact details and which of them other members of her guilds may see. */
+export class DirectoryDetailsDto {
+  @ApiProperty({ nullable: true, example: '+1 555 0142' })
+  @IsOptional()
+  @ValidateIf((_, v) => v !== null && v !== '')
+  @IsString({ message: 'Write the phone number as text.' })
+  @Matches(/^\+?[0-9 ()./-]{5,40}$/, { message: 'Write a phone number with digits, spaces and + ( ) - only, like +1 555 0142.' })
+  phone?: string | null;
+
+  @ApiProperty({ nullable: true })
+  @IsOptional()
+  @ValidateIf((_, v) => v !== null && v !== '')
+  @IsString({ message: 'Write your town as text.' })
+  @MaxLength(120, { message: 'Use at most 120 characters.' })
+  town?: string | null;
+
+  @ApiProperty()
+  @IsBoolean({ message: 'Say whether members may see your e-mail address.' })
+  showEmail!: boolean;
+
+  @ApiProperty()
+  @IsBoolean({ message: 'Say whether members may see your phone number.' })
+  showPhone!: boolean;
+
+  @ApiProperty()
+  @IsBoolean({ message: 'Say whether members may see your town.' })
+  showTown!: boolean;
 }

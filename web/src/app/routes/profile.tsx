@@ -1,4 +1,5 @@
 import Card from 'react-bootstrap/Card';
+import { DirectoryForm } from '@/features/profile/components/directory-form';
 import { MailPreferencesForm } from '@/features/mail-preferences/components/mail-preferences-form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
@@ -48,6 +49,14 @@ export default function ProfileRoute() {
                 Password
               </h2>
               <ChangePasswordForm />
+            </Card.Body>
+          </Card>
+          <Card as="section" aria-labelledby="directory-heading" className="mt-4">
+            <Card.Body>
+              <h2 id="directory-heading" className="h3 mb-3">
+                What other members see
+              </h2>
+              <DirectoryForm />
             </Card.Body>
           </Card>
           <Card as="section" aria-labelledby="mail-heading" className="mt-4">

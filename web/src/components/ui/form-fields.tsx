@@ -65,11 +65,11 @@ function LabelledControl({
 type TextFieldProps = {
   name: string;
   label: ReactNode;
-  type?: 'text' | 'email' | 'password' | 'url' | 'date' | 'time' | 'month' | 'number';
+  type?: 'text' | 'email' | 'password' | 'url' | 'date' | 'time' | 'month' | 'number' | 'tel';
   autoComplete?: string;
   help?: ReactNode;
   optional?: boolean;
-  inputMode?: 'text' | 'email' | 'decimal' | 'numeric' | 'url';
+  inputMode?: 'text' | 'email' | 'decimal' | 'numeric' | 'url' | 'tel';
   autoFocus?: boolean;
   min?: number | string;
   max?: number | string;

@@ -6,8 +6,10 @@ export type Member = {
   membershipId: number | string;
   name: string;
   roles: string[];
-  /** Only in the officer view (admin, membership chair). */
+  /** Officers (admin, membership chair) see these always; other members when the person chose to show them. */
   email?: string;
+  phone?: string | null;
+  town?: string | null;
   status?: string;
   joinedAt?: string | null;
 };

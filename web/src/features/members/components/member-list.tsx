@@ -37,6 +37,20 @@ export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No
                     </a>
                   </p>
                 )}
+                {member.phone && (
+                  <p className="mb-1">
+                    <span className="visually-hidden">Phone: </span>
+                    <a href={`tel:${member.phone.replace(/[^0-9+]/g, '')}`} className="tap-link">
+                      {member.phone}
+                    </a>
+                  </p>
+                )}
+                {member.town && (
+                  <p className="mb-1">
+                    <span className="visually-hidden">Town: </span>
+                    {member.town}
+                  </p>
+                )}
                 <p className="mb-2">
                   <span className="visually-hidden">Roles: </span>
                   {member.roles.length === 0 ? (
