@@ -32,13 +32,13 @@ export function DirectoryForm() {
     >
       <Form noValidate aria-label="Contact details and the directory">
         <FormAlert />
-        <TextField name="phone" label="Phone" type="tel" autoComplete="tel" inputMode="tel" optional />
-        <TextField name="town" label="Town" autoComplete="address-level2" optional />
+        <TextField name="phone" label="Phone number" type="tel" autoComplete="tel" inputMode="tel" optional />
+        <TextField name="town" label="Town you live in" autoComplete="address-level2" optional />
         <fieldset className="mb-3">
-          <legend className="form-label fs-6 fw-bold mb-1">Other members may see my</legend>
-          <CheckboxField name="showEmail" label="E-mail address" />
-          <CheckboxField name="showPhone" label="Phone" />
-          <CheckboxField name="showTown" label="Town" />
+          <legend className="form-label fs-6 fw-bold mb-1">Other members may see</legend>
+          <CheckboxField name="showEmail" label="My e-mail address" />
+          <CheckboxField name="showPhone" label="My phone number" />
+          <CheckboxField name="showTown" label="My town" />
           <p className="form-text mb-0">Your name is always shown. The officers who keep the roster see your details whatever you choose.</p>
         </fieldset>
         <SubmitButton busyLabel="Saving">Save my choices</SubmitButton>
