@@ -91,6 +91,8 @@ const ACCESS: Record<string, Access> = {
   'POST /api/guilds/:guildId/dues/households': ['treasurer'],
   'GET /api/guilds/:guildId/dues/audit': ['treasurer'],
   'POST /api/guilds': 'signed-in',
+  'GET /api/profile/export.json': 'signed-in',
+  'GET /api/profile/export.pdf': 'signed-in',
   'GET /api/profile/directory': 'signed-in',
   'PUT /api/profile/directory': 'signed-in',
   'GET /api/profile/mail-preferences': 'signed-in',

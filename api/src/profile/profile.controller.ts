@@ -1,15 +1,36 @@
-import { Body, Controller, Get, HttpCode, Patch, Post, Put, Req } from '@nestjs/common';
-import type { Request } from 'express';
+import { Body, Controller, Get, HttpCode, Patch, Post, Put, Req, Res } from '@nestjs/common';
+import type { Request, Response } from 'express';
 import { ApiTags } from '@nestjs/swagger';
 import type { SessionUser } from '../auth/session-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ChangeEmailDto, ChangePasswordDto, DirectoryDetailsDto, UpdateProfileDto } from './dto/profile.dto';
+import { DataExportService } from './data-export.service';
 import { ProfileService } from './profile.service';
 
 @ApiTags('profile')
 @Controller('profile')
 export class ProfileController {
-  constructor(private readonly profile: ProfileService) {}
+  constructor(
+    private readonly profile: ProfileService,
+    private readonly exports: DataExportService,
+  ) {}
+
+  /** Everything Selvage holds about her, as JSON. */
+  @Get('export.json')
+  async exportJson(@CurrentUser() user: SessionUser, @Res() res: Response) {
+    res.setHeader('Content-Disposition', 'attachment; filename="selvage-my-data.json"');
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.json(await this.exports.collect(user.id));
+  }
+
+  /** The same, as a readable PDF. */
+  @Get('export.pdf')
+  async exportPdf(@CurrentUser() user: SessionUser, @Res() res: Response) {
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', 'attachment; filename="selvage-my-data.pdf"');
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(await this.exports.pdf(user.id));
+  }
 
   @Get()
   get(@CurrentUser() user: SessionUser) {

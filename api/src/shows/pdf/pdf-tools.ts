@@ -72,7 +72,7 @@ const currentFont = (doc: Doc): FontkitFont | undefined => (doc as unknown as { 
 /** Parsed fonts kept between documents (pdfkit accepts them in place of the file); each PDF still embeds its own subset. */
 let parsedFonts: Partial<Record<Weight, FontkitFont>> = {};
 
-function registerFonts(doc: Doc): void {
+export function registerFonts(doc: Doc): void {
   const files = fontFiles();
   for (const w of WEIGHTS) {
     const parsed = parsedFonts[w];

@@ -1,4 +1,5 @@
 import Card from 'react-bootstrap/Card';
+import { env } from '@/config/env';
 import { DirectoryForm } from '@/features/profile/components/directory-form';
 import { MailPreferencesForm } from '@/features/mail-preferences/components/mail-preferences-form';
 import Col from 'react-bootstrap/Col';
@@ -57,6 +58,22 @@ export default function ProfileRoute() {
                 What other members see
               </h2>
               <DirectoryForm />
+            </Card.Body>
+          </Card>
+          <Card as="section" aria-labelledby="data-heading" className="mt-4">
+            <Card.Body>
+              <h2 id="data-heading" className="h3 mb-3">
+                Your data
+              </h2>
+              <p>Download everything Selvage holds about you: your account, guilds, bees and blocks, dues and fees, and show entries.</p>
+              <div className="d-flex flex-wrap gap-3">
+                <a href={`${env.apiBaseUrl}/profile/export.pdf`} className="tap-link" download>
+                  My data as a readable PDF
+                </a>
+                <a href={`${env.apiBaseUrl}/profile/export.json`} className="tap-link" download>
+                  My data as JSON (for computers)
+                </a>
+              </div>
             </Card.Body>
           </Card>
           <Card as="section" aria-labelledby="mail-heading" className="mt-4">
