@@ -51,6 +51,28 @@ test('a member sees the show, its sleeve rule and her entry waiting for the show
   await shootBothWidths(page, 'show-enter');
 });
 
+test('a member enters a quilt on her phone: the server refuses a size outside the category and says by how much', async ({ page }) => {
+  await signIn(page, MEMBER);
+  await page.goto(showPath);
+  await page.getByRole('link', { name: 'Enter a quilt' }).click();
+  const form = page.getByRole('form', { name: 'Enter a quilt' });
+  await form.getByLabel('Category').selectOption({ label: 'Medium' });
+  await form.getByLabel('Title of the quilt').fill('Kitchen Window Stars');
+  await form.getByLabel('Width (inches)').fill('60');
+  await form.getByLabel('Height (inches)').fill('66');
+  await form.getByLabel('Quilted by').fill('June Pettigrew');
+  await form.getByRole('button', { name: 'Enter this quilt' }).click();
+  await expect(form.getByText('yours is 252 in around, 12 in over')).toBeVisible();
+  await shootBothWidths(page, 'show-enter-refused');
+  await form.getByLabel('Height (inches)').fill('59 1/2');
+  await form.getByRole('button', { name: 'Enter this quilt' }).click();
+  const entry = page.getByTestId('my-entry').filter({ hasText: 'Kitchen Window Stars' });
+  await expect(entry).toContainText('waiting for the show chair');
+  // 60 in wide: a 4 in sleeve from an 8 1/2 x 59 strip.
+  await expect(entry.getByTestId('sleeve-strip')).toContainText('8 1/2 in x 59 in');
+  await expect(page.getByTestId('entry-fees')).toContainText('Still to pay: $10.00');
+});
+
 test('the show chair accepts an entry, opens voting and prints visitor ballot cards', async ({ page }) => {
   await signIn(page, CHAIR);
   await openShow(page);

@@ -1,4 +1,6 @@
+import { EntityManager } from '@mikro-orm/mariadb';
 import { Inject, Injectable, NotFoundException } from '@nestjs/common';
+import { formatInches, mmToInches } from '../common/units/inches';
 import { appConfig, type AppConfig } from '../config/app.config';
 import { toCsv } from '../dues/csv';
 import { formatDate, todayIn } from '../dues/dues-rules';
@@ -10,7 +12,6 @@ import { ShowEntry } from './show-entry.entity';
 import { sizeText } from './show-presenter';
 import { ShowsService } from './shows.service';
 import { VotingService } from './voting.service';
-import { EntityManager } from '@mikro-orm/mariadb';
 
 export interface PrintedFile {
   filename: string;
@@ -90,15 +91,14 @@ export class ShowPrintsService {
     const csv = toCsv(
       ['Entry number', 'Category', 'Title', 'Makers', 'Quilted by', 'Width (in)', 'Height (in)', 'Status', 'Entered for', 'For sale', 'Price', 'Techniques', 'Story'],
       entries.map((e) => {
-        const [w, h] = sizeText(e.widthMm, e.heightMm).replace(' in', '').split(' x ');
         return [
           e.entryNumber ?? null,
           e.category.name,
           e.title,
           e.makers.join('; '),
           e.quilter,
-          w,
-          h,
+          formatInches(mmToInches(e.widthMm)),
+          formatInches(mmToInches(e.heightMm)),
           statusLabel(e.status),
           e.membership.user.name,
           e.forSale ? 'yes' : 'no',

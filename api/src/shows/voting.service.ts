@@ -2,6 +2,7 @@ import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { randomBytes } from 'node:crypto';
+import { formatInches, mmToInches } from '../common/units/inches';
 import { withTransaction } from '../database/transaction';
 import { formatDate, todayIn } from '../dues/dues-rules';
 import { toCsv } from '../dues/csv';
@@ -10,7 +11,6 @@ import { formatBallotCode, generateBallotCode, normaliseBallotCode } from './bal
 import { BallotCode, type BallotChoices, TieDecisionRecord, type VoterChannel } from './ballot.entity';
 import { TieDecisionDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
-import { sizeText } from './show-presenter';
 import { Show } from './show.entity';
 import { isShowChair, ShowsService } from './shows.service';
 import { type BallotCategory, checkBallot, countShow, votingState } from './voting';
@@ -140,8 +140,8 @@ export class VotingService {
             title: e.title,
             makers: show.makersHidden ? null : e.makers,
             photoUrl: photoUrl(e),
-            widthText: sizeText(e.widthMm, e.heightMm).split(' x ')[0],
-            heightText: sizeText(e.widthMm, e.heightMm).split(' x ')[1].replace(' in', ''),
+            widthText: formatInches(mmToInches(e.widthMm)),
+            heightText: formatInches(mmToInches(e.heightMm)),
           };
         }),
       })),
