@@ -5,7 +5,7 @@
  */
 import { ChildProcess, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { connect } from 'node:net';
 import { BackupError, restoreBackup, takeBackup } from '../src/database/backup';
@@ -282,16 +282,27 @@ async function test() {
   });
   await migrateAndSeed(e2eEnv, true);
   await startApi(e2eEnv);
-  results.push([
-    'browser (playwright)',
-    await run('npx', ['playwright', 'test'], { ...process.env, E2E_BASE_URL: `http://127.0.0.1:${ports.api}` }, WEB),
-  ]);
+  const browserCode = await run('npx', ['playwright', 'test'], { ...process.env, E2E_BASE_URL: `http://127.0.0.1:${ports.api}` }, WEB);
+  results.push(['browser (playwright)', browserCode]);
+  if (browserCode !== 0) printPageSnapshots(join(WEB, 'test-results'));
 
   console.log('\nSummary:');
   for (const [name, code] of results) console.log(`  ${code === 0 ? 'passed' : 'FAILED'}  ${name}`);
   const failed = results.filter(([, code]) => code !== 0).length;
   console.log(`${results.length - failed} passed, ${failed} failed`);
   await shutdown(failed ? 1 : 0);
+}
+
+/**
+ * A failed browser test leaves the page's accessibility snapshot beside its trace; printing it puts
+ * what the page showed into the log of a machine whose files are gone once the run ends.
+ */
+function printPageSnapshots(resultsDir: string): void {
+  if (!existsSync(resultsDir)) return;
+  for (const file of readdirSync(resultsDir, { recursive: true, encoding: 'utf8' })) {
+    if (!file.endsWith('error-context.md')) continue;
+    console.log(`\n--- what the page showed: ${file} ---\n${readFileSync(join(resultsDir, file), 'utf8').slice(0, 12_000)}`);
+  }
 }
 
 /**

@@ -62,7 +62,11 @@ test('a member enters a quilt on her phone: the server refuses a size outside th
   await form.getByLabel('Height (inches)').fill('66');
   await form.getByLabel('Quilted by').fill('June Pettigrew');
   await form.getByRole('button', { name: 'Enter this quilt' }).click();
-  await expect(form.getByText('yours is 252 in around, 12 in over')).toBeVisible();
+  // The server's refusal: in the form's alert and under the width field (the live size warning above
+  // says the same in its own words, so each place is asserted on its own).
+  await expect(form.getByRole('alert')).toContainText('Medium: This category takes quilts at most 240 in around (perimeter); yours is 252 in around, 12 in over.');
+  await expect(form.getByLabel('Width (inches)')).toHaveAttribute('aria-invalid', 'true');
+  await expect(form.getByTestId('size-warning')).toContainText('Yours is 252 in around, 12 in over.');
   await shootBothWidths(page, 'show-enter-refused');
   await form.getByLabel('Height (inches)').fill('59 1/2');
   await form.getByRole('button', { name: 'Enter this quilt' }).click();
