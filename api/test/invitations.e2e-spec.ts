@@ -2,6 +2,7 @@ import request from 'supertest';
 import { Invitation } from '../src/invitations/invitation.entity';
 import { Membership } from '../src/guilds/membership.entity';
 import { OutboxMessage } from '../src/outbox/outbox-message.entity';
+import { User } from '../src/users/user.entity';
 import { client, createScenario, createTestApp, linkIn, PASSWORD, signIn, TestApp, unique, waitForMail } from './helpers';
 
 describe('joining a guild by invitation, through the SMTP fake (real MariaDB)', () => {
@@ -46,6 +47,31 @@ describe('joining a guild by invitation, through the SMTP fake (real MariaDB)', 
     const again = await client(t).post(`/api/invitations/${token}/accept`).send({ name: 'Someone', password: PASSWORD });
     expect(again.status).toBe(404);
     expect(again.body.message).toMatch(/expired, was already used/);
+  });
+
+  it('a member the officers added without a password cannot sign in; her invitation lets her choose one and keeps her record', async () => {
+    const email = `${unique('kept')}@test.example`;
+    const em = t.orm.em.fork();
+    const user = em.create(User, { email, name: 'Philippa Kept', passwordHash: null, phone: '555 0100' });
+    const kept = em.create(Membership, { user, guild: s.guild.id, roles: [] });
+    await em.flush();
+
+    const refused = await client(t).post('/api/auth/sign-in').send({ email, password: PASSWORD });
+    expect(refused.status).toBe(401);
+    const { token } = await invite(email);
+    expect((await request(t.http).get(`/api/invitations/${token}`)).body.hasAccount).toBe(false);
+    const she = client(t);
+    expect((await she.post(`/api/invitations/${token}/accept`).send({ name: 'Philippa Kept', password: PASSWORD })).status).toBe(200);
+    expect((await she.get('/api/dashboard')).body.guilds).toEqual([expect.objectContaining({ id: s.guild.id })]);
+    // Same account and membership as before, now with a password; her phone stays.
+    const after = await t.orm.em.fork().findOneOrFail(Membership, { id: kept.id }, { populate: ['user', 'user.passwordHash'] });
+    expect(after.user.id).toBe(user.id);
+    expect(after.user.passwordHash).toBeTruthy();
+    expect(after.user.phone).toBe('555 0100');
+    expect((await client(t).post('/api/auth/sign-in').send({ email, password: PASSWORD })).status).toBe(200);
+    // Now that she signs in, inviting her again is refused as for any member.
+    const admin = await signIn(t, s.admin.email);
+    expect((await admin.post(`/api/guilds/${s.guild.id}/invitations`).send({ email })).status).toBe(409);
   });
 
   it('adds the guild to an existing account once she signs in as the invited address', async () => {

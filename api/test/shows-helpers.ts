@@ -44,6 +44,6 @@ export async function signedInMembers(t: TestApp, guildId: number, tag: string, 
   for (const user of users) em.create(Membership, { user, guild: guildId, roles: [] });
   await em.flush();
   const agents: TestAgent[] = [];
-  for (const u of users) agents.push(await signIn(t, u.email));
+  for (const u of users) agents.push(await signIn(t, u.email!));
   return agents;
 }

@@ -25,11 +25,12 @@ export class LocalStrategy extends PassportStrategy(Strategy) {
     await this.limiter.assertAllowed(email, address);
     const user = await this.em.fork().findOne(User, { email }, { populate: ['passwordHash'] });
     // An unknown address costs one argon2 verification too, so timing does not tell them apart.
+    // A member added by an officer or an import has no password until she accepts an invitation or resets it.
     const ok = await verifyPassword(user?.passwordHash ?? (await decoyHash()), password);
-    if (!user || !ok) {
+    if (!user || !user.passwordHash || !ok) {
       await this.limiter.recordFailure(email, address);
       throw new UnauthorizedException(WRONG_CREDENTIALS);
     }
-    return { id: user.id, email: user.email, name: user.name };
+    return { id: user.id, email: email, name: user.name };
   }
 }

@@ -18,7 +18,8 @@ export class SessionSerializer extends PassportSerializer {
   async deserializeUser(id: number, done: (err: Error | null, user?: SessionUser | false) => void): Promise<void> {
     try {
       const user = await this.em.fork().findOne(User, { id }, { fields: ['id', 'email', 'name'] });
-      done(null, user ? { id: user.id, email: user.email, name: user.name } : false);
+      // A member kept on paper, or one whose data was erased, has no address and holds no session.
+      done(null, user?.email ? { id: user.id, email: user.email, name: user.name } : false);
     } catch (e) {
       done(e as Error);
     }

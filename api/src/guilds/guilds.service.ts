@@ -10,7 +10,10 @@ export interface MemberRow {
   membershipId: number;
   name: string;
   roles: Role[];
-  email?: string;
+  /** Null for a member kept on paper (no e-mail address). */
+  email?: string | null;
+  /** Roster officers only: false until she has chosen a password (added by hand or imported). */
+  signsIn?: boolean;
   phone?: string | null;
   town?: string | null;
   status?: string;
@@ -51,15 +54,16 @@ export class GuildsService {
     const memberships = await this.em.find(
       Membership,
       officer ? { guild: viewer.guild } : { guild: viewer.guild, status: 'active' },
-      { populate: ['user'], orderBy: { user: { name: 'asc' } } },
+      { populate: officer ? ['user', 'user.passwordHash'] : ['user'], orderBy: { user: { name: 'asc' } } },
     );
     return memberships.map((m) => {
       const u = m.user;
       const row: MemberRow = { membershipId: m.id, name: u.name, roles: m.roles };
       // Officers who keep the roster see every contact detail; other members see what each chose to show.
-      if (officer) Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt });
+      if (officer)
+        Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt, signsIn: Boolean(u.passwordHash) });
       else {
-        if (u.showEmail) row.email = u.email;
+        if (u.showEmail && u.email) row.email = u.email;
         if (u.showPhone && u.phone) row.phone = u.phone;
         if (u.showTown && u.town) row.town = u.town;
       }

@@ -53,8 +53,10 @@ export class InvitationsService {
       const guild = inviter.guild;
       // Serialise invitations to one guild so two officers cannot invite the same person twice.
       await em.findOneOrFail(Guild, { id: guild.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
-      const existing = await em.findOne(Membership, { guild, user: { email }, status: 'active' });
-      if (existing) throw new ConflictException(`${email} is already a member of ${guild.name}.`);
+      const existing = await em.findOne(Membership, { guild, user: { email }, status: 'active' }, { populate: ['user.passwordHash'] });
+      // A member the officers added (by hand or from the roster import) has no password yet: the
+      // invitation is how she comes to sign in for the first time.
+      if (existing?.user.passwordHash) throw new ConflictException(`${email} is already a member of ${guild.name}.`);
       const pending = await em.findOne(Invitation, {
         guild,
         email,
@@ -125,7 +127,8 @@ export class InvitationsService {
 
   async describe(token: string) {
     const invitation = await this.findUsable(this.em, token);
-    const hasAccount = (await this.em.count(User, { email: invitation.email })) > 0;
+    const user = await this.em.findOne(User, { email: invitation.email }, { populate: ['passwordHash'] });
+    const hasAccount = Boolean(user?.passwordHash);
     return {
       guildName: invitation.guild.name,
       guildTown: invitation.guild.town,
@@ -145,9 +148,9 @@ export class InvitationsService {
     const passwordHash = details.password ? await hashPassword(details.password) : undefined;
     return this.em.transactional(async (em) => {
       const invitation = await this.findUsable(em, token);
-      let user = await em.findOne(User, { email: invitation.email });
+      let user = await em.findOne(User, { email: invitation.email }, { populate: ['passwordHash'] });
       let created = false;
-      if (user) {
+      if (user?.passwordHash) {
         if (!signedIn)
           throw new ForbiddenException(`You already have an account. Sign in as ${invitation.email} to accept.`);
         if (signedIn.id !== user.id)
@@ -164,7 +167,11 @@ export class InvitationsService {
         if (!passwordHash) errors.password = ['Choose a password of at least 10 characters.'];
         if (Object.keys(errors).length)
           throw new BadRequestException({ message: 'Please check the highlighted fields.', errors });
-        user = em.create(User, { email: invitation.email, name: details.name!.trim(), passwordHash: passwordHash! });
+        if (user) {
+          // Kept by the officers until now (added by hand or imported): she chooses her password today.
+          user.name = details.name!.trim();
+          user.passwordHash = passwordHash!;
+        } else user = em.create(User, { email: invitation.email, name: details.name!.trim(), passwordHash: passwordHash! });
         created = true;
       }
       // Single use: only the request that still sees it unaccepted goes on.
@@ -188,7 +195,7 @@ export class InvitationsService {
         to: user.email,
         context: { name: user.name, guildName: invitation.guild.name, dashboardUrl: `${this.app.origin}/` },
       });
-      return { user: { id: user.id, email: user.email, name: user.name }, guildId: invitation.guild.id, created };
+      return { user: { id: user.id, email: invitation.email, name: user.name }, guildId: invitation.guild.id, created };
     });
   }
 }

@@ -9,7 +9,8 @@ export interface OutgoingEmail {
   /** Unique per real-world message, e.g. `invitation:42`; a repeat is silently ignored. */
   idempotencyKey: string;
   template: EmailTemplateName;
-  to: string;
+  /** Null for a member kept on paper (no e-mail address): nothing is queued for her. */
+  to: string | null;
   context: Record<string, unknown>;
   headers?: Record<string, string>;
   attachments?: { filename: string; contentType: string; content: string | Buffer }[];
@@ -25,6 +26,7 @@ export class OutboxService {
    * already queued (nothing new was written).
    */
   async enqueue(em: EntityManager, email: OutgoingEmail): Promise<boolean> {
+    if (!email.to) return false;
     let context = email.context;
     let headers = email.headers ?? null;
     let footer = '';

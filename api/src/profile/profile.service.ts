@@ -12,7 +12,7 @@ export class ProfileService {
   constructor(private readonly em: EntityManager) {}
 
   private toDto(u: User): SessionUser {
-    return { id: u.id, email: u.email, name: u.name };
+    return { id: u.id, email: u.email ?? '', name: u.name };
   }
 
   async get(id: number): Promise<SessionUser> {
@@ -44,7 +44,7 @@ export class ProfileService {
 
   private async checkCurrent(id: number, password: string): Promise<User> {
     const user = await this.em.findOneOrFail(User, { id }, { populate: ['passwordHash'] });
-    if (!(await verifyPassword(user.passwordHash, password))) throw new BadRequestException(WRONG_CURRENT);
+    if (!user.passwordHash || !(await verifyPassword(user.passwordHash, password))) throw new BadRequestException(WRONG_CURRENT);
     return user;
   }
 

@@ -2,17 +2,21 @@ import { Entity, Property, Unique } from '@mikro-orm/core';
 import { BaseEntity } from '../database/base.entity';
 
 @Entity({ tableName: 'users' })
-export class User extends BaseEntity<'remindersOff' | 'phone' | 'town' | 'showEmail' | 'showPhone' | 'showTown'> {
-  /** Stored lower-cased and trimmed; one account per address. */
-  @Property({ type: 'string', length: 254 })
+export class User extends BaseEntity<'remindersOff' | 'phone' | 'town' | 'showEmail' | 'showPhone' | 'showTown' | 'erasedAt'> {
+  /**
+   * Stored lower-cased and trimmed; one account per address. Null for a member the officers keep on
+   * her behalf (no e-mail address: she reads paper and never signs in).
+   */
+  @Property({ type: 'string', length: 254, nullable: true })
   @Unique()
-  email!: string;
+  email!: string | null;
 
   @Property({ type: 'string', length: 120 })
   name!: string;
 
-  @Property({ type: 'string', length: 255, hidden: true, lazy: true })
-  passwordHash!: string;
+  /** Null until she chooses a password (members added by an officer or by a roster import). */
+  @Property({ type: 'string', length: 255, hidden: true, lazy: true, nullable: true })
+  passwordHash!: string | null;
 
   @Property({ type: 'datetime', length: 3, nullable: true })
   lastSignInAt?: Date | null;
@@ -36,4 +40,8 @@ export class User extends BaseEntity<'remindersOff' | 'phone' | 'town' | 'showEm
 
   @Property({ type: 'boolean' })
   showTown: boolean = false;
+
+  /** When an admin erased her personal data after she left (name replaced; money records kept). */
+  @Property({ type: 'datetime', length: 3, nullable: true })
+  erasedAt?: Date | null = null;
 }
