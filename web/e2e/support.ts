@@ -128,6 +128,9 @@ export async function shootBothWidths(page: Page, name: string) {
   mkdirSync(SCREENSHOTS, { recursive: true });
   for (const viewport of [PHONE, DESKTOP]) {
     await page.setViewportSize(viewport);
+    // The pointer stays where the last click was; after the layout moves, whatever lies under it
+    // would be measured in its hover colours, half-way through a transition.
+    await page.mouse.move(0, 0);
     await page.evaluate(() => document.fonts.ready);
     await page.waitForLoadState('networkidle').catch(() => undefined);
     await page.screenshot({ path: `${SCREENSHOTS}${name}-${viewport.width}.png`, fullPage: true });
