@@ -337,6 +337,7 @@ async function bench() {
   await mustRun('size-check accuracy', process.execPath, [join(API, 'dist', 'src', 'size-check', 'measure', 'accuracy-bench.js'), photos], process.env);
   await mustRun('dues bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-dues.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
   await mustRun('ballot bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-ballots.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
+  await mustRun('roster import bench', process.execPath, [join(API, 'dist', 'scripts', 'bench-import.js')], { ...env, BENCH_URL: `http://127.0.0.1:${ports.api}` });
 }
 
 

@@ -12,6 +12,7 @@ import { OriginGuard } from './common/guards/origin.guard';
 import { appConfig, authConfig, beesConfig, mailConfig, paymentsConfig } from './config/app.config';
 import { validateEnv } from './config/env.validation';
 import { DashboardModule } from './dashboard/dashboard.module';
+import { DeparturesModule } from './departures/departures.module';
 import { DuesModule } from './dues/dues.module';
 import { DevInboxModule } from './dev-inbox/dev-inbox.module';
 import { GuildsModule } from './guilds/guilds.module';
@@ -25,9 +26,11 @@ import { MailPreferencesModule } from './mail-preferences/mail-preferences.modul
 import { StorageModule } from './storage/storage.module';
 import { HousekeepingModule } from './housekeeping/housekeeping.module';
 import { InvitationsModule } from './invitations/invitations.module';
+import { OfficesModule } from './offices/offices.module';
 import ormConfig from './mikro-orm.config';
 import { OutboxModule } from './outbox/outbox.module';
 import { ProfileModule } from './profile/profile.module';
+import { RosterImportModule } from './roster-import/roster-import.module';
 
 @Module({
   imports: [
@@ -52,6 +55,7 @@ import { ProfileModule } from './profile/profile.module';
     GuildsModule,
     InvitationsModule,
     ProfileModule,
+    DeparturesModule,
     DashboardModule,
     DevInboxModule,
     HealthModule,
@@ -64,6 +68,8 @@ import { ProfileModule } from './profile/profile.module';
     DuesModule,
     ShowsModule,
     MailPreferencesModule,
+    RosterImportModule,
+    OfficesModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: HttpErrorFilter },

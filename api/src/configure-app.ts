@@ -10,6 +10,7 @@ import passport from 'passport';
 import { sessionExpired } from './auth/session-limits';
 import { createValidationPipe } from './common/pipes/validation';
 import type { AppConfig } from './config/app.config';
+import { ROSTER_IMPORT_ROUTES, rosterImportJsonParser } from './roster-import/roster-upload';
 
 export const SESSION_COOKIE = 'selvage.sid';
 
@@ -23,6 +24,8 @@ export function configureApp(app: NestExpressApplication): { closeSessionStore: 
   app.setGlobalPrefix('api');
   app.useGlobalPipes(createValidationPipe());
   app.enableShutdownHooks();
+  // The roster import takes up to 5 MB of text as JSON; every other route keeps the default JSON limit.
+  app.use(ROSTER_IMPORT_ROUTES, rosterImportJsonParser());
 
   const MySQLStore = MySQLStoreFactory(session as never);
   const store = new MySQLStore({

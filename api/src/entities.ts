@@ -27,6 +27,7 @@ import { BallotCode, ShowBallot, ShowVoter, TieDecisionRecord } from './shows/ba
 import { ShowCategory } from './shows/show-category.entity';
 import { ShowEntry } from './shows/show-entry.entity';
 import { Show } from './shows/show.entity';
+import { OfficeTerm } from './offices/office-term.entity';
 
 /** Every entity, listed once for the app, the CLI and the tests. */
 export const ENTITIES = [
@@ -62,4 +63,5 @@ export const ENTITIES = [
   ShowVoter,
   ShowBallot,
   TieDecisionRecord,
+  OfficeTerm,
 ];

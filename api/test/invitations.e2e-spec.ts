@@ -40,6 +40,10 @@ describe('joining a guild by invitation, through the SMTP fake (real MariaDB)', 
     expect(dash.status).toBe(200);
     expect(dash.body.user.name).toBe('Wilhelmina Test');
     expect(dash.body.guilds).toEqual([expect.objectContaining({ id: s.guild.id, roles: ['show_chair'] })]);
+    // Her office is a term from today in the guild's record, so the roles keep following the terms.
+    const history = await newcomer.get(`/api/guilds/${s.guild.id}/offices/history`).expect(200);
+    const hers = (Array.isArray(history.body) ? history.body : history.body.terms).filter((x: { name: string }) => x.name === 'Wilhelmina Test');
+    expect(hers).toEqual([expect.objectContaining({ role: 'show_chair', endsOn: null, note: 'Given with her invitation' })]);
     await waitForMail(email, (m) => /welcome/i.test(m.subject));
 
     // Single use: the same link cannot be used again, signed in or not.

@@ -38,6 +38,12 @@ export class BeesController {
     return this.bees.invite(me, beeId, body.membershipIds);
   }
 
+  /** The organiser adds members who do not sign in straight to the bee (they cannot accept an invitation). */
+  @Post(':beeId/members')
+  addOnBehalf(@CurrentMembership() me: Membership, @Param('beeId', id()) beeId: number, @Body() body: InviteToBeeDto) {
+    return this.bees.addOnBehalf(me, beeId, body.membershipIds);
+  }
+
   @Post(':beeId/join')
   @HttpCode(200)
   join(@CurrentMembership() me: Membership, @Param('beeId', id()) beeId: number) {

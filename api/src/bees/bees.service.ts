@@ -99,11 +99,18 @@ export class BeesService {
     const a = await this.access(me, beeId);
     const { bee } = a;
     const [members, slots, rounds] = await Promise.all([
-      this.em.find(BeeMember, { bee }, { populate: ['membership.user'], orderBy: { membership: { user: { name: 'asc' } } } }),
+      this.em.find(BeeMember, { bee }, { populate: ['membership.user', 'membership.user.passwordHash'], orderBy: { membership: { user: { name: 'asc' } } } }),
       this.em.find(BeeSlot, { bee }, { populate: ['queen.user'], orderBy: { month: 'asc' } }),
       this.em.find(Round, { bee }, { fields: ['month', 'status', 'title', 'sentAt'] }),
     ]);
     const current = this.currentMonth(bee);
+    // For the organiser: guild members who do not sign in and are not making in the bee, whom she can add herself.
+    const inBee = new Set(members.filter((m) => m.status === 'active').map((m) => m.membership.id));
+    const addable = a.isOrganiser
+      ? (await this.em.find(Membership, { guild: me.guild, status: 'active', user: { passwordHash: null } }, { populate: ['user'], orderBy: { user: { name: 'asc' } } }))
+          .filter((m) => !inBee.has(m.id))
+          .map((m) => ({ membershipId: m.id, name: m.user.name }))
+      : [];
     return {
       id: bee.id,
       name: bee.name,
@@ -119,7 +126,8 @@ export class BeesService {
       myStatus: a.isOrganiser ? 'organiser' : (a.myBeeMember?.status ?? null),
       members: members
         .filter((m) => m.status !== 'left')
-        .map((m) => ({ membershipId: m.membership.id, name: m.membership.user.name, status: m.status })),
+        .map((m) => ({ membershipId: m.membership.id, name: m.membership.user.name, status: m.status, onPaper: !m.membership.user.passwordHash })),
+      addable,
       rotation: slots.map((s) => {
         const round = rounds.find((r) => r.month === s.month);
         return {
@@ -167,6 +175,44 @@ export class BeesService {
           },
         });
       }
+    });
+    return this.detail(me, beeId);
+  }
+
+  /**
+   * The organiser adds members who do not sign in (no e-mail address, or no password yet) straight
+   * to the bee as active makers: they cannot accept an invitation, so she acts on their behalf.
+   */
+  async addOnBehalf(me: Membership, beeId: number, membershipIds: number[]) {
+    await this.em.transactional(async (em) => {
+      const a = await this.access(me, beeId, em);
+      this.assertOrganiser(a);
+      const ids = [...new Set(membershipIds)];
+      const people = await em.find(Membership, { id: { $in: ids }, guild: me.guild, status: 'active' }, { populate: ['user', 'user.passwordHash'] });
+      if (people.length !== ids.length) throw new BadRequestException({
+        message: 'Please check the highlighted fields.',
+        errors: { membershipIds: ['Choose members of this guild.'] },
+      });
+      const signsIn = people.filter((p) => p.user.passwordHash);
+      if (signsIn.length)
+        throw new ConflictException(
+          `${signsIn.map((p) => p.user.name).join(', ')} ${signsIn.length === 1 ? 'signs' : 'sign'} in to Selvage; invite ${signsIn.length === 1 ? 'her' : 'them'} instead, so ${signsIn.length === 1 ? 'she chooses' : 'they choose'} to join.`,
+        );
+      let changed = false;
+      for (const person of people) {
+        const existing = await em.findOne(BeeMember, { bee: a.bee, membership: person });
+        if (existing?.status === 'active') continue;
+        if (existing) {
+          existing.status = 'active';
+          existing.joinedAt = new Date();
+          existing.leftAt = null;
+        } else em.create(BeeMember, { bee: a.bee, membership: person, status: 'active', joinedAt: new Date() });
+        if (!a.bee.rotationOrder.includes(person.id)) a.bee.rotationOrder = [...a.bee.rotationOrder, person.id];
+        changed = true;
+      }
+      if (!changed) return;
+      await em.flush();
+      await this.replan(em, a.bee);
     });
     return this.detail(me, beeId);
   }

@@ -1,3 +1,4 @@
+import { wrap } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import {
   BadRequestException,
@@ -139,7 +140,7 @@ export class DuesLedgerService {
     const invoice = await em.findOne(
       DuesInvoice,
       { id: invoiceId, guild: me.guild.id },
-      { populate: ['guild', 'membership.user', 'plan'], refresh: true },
+      { populate: ['guild', 'membership.user', 'plan', 'createdBy.user'], refresh: true },
     );
     if (!invoice || (invoice.membership.id !== me.id && !isTreasurer(me))) throw new NotFoundException('No such invoice.');
     return invoice;
@@ -167,6 +168,8 @@ export class DuesLedgerService {
       paymentNote: i.paymentNote ?? null,
       membershipId: i.membership.id,
       memberName: i.membership.user.name,
+      /** Cash and cheques: the officer who recorded the payment on her behalf. */
+      recordedBy: i.method && i.method !== 'card' && i.createdBy && i.createdBy.id !== i.membership.id && wrap(i.createdBy).isInitialized() ? (i.createdBy.user?.name ?? null) : null,
       issuedOn: todayIn(i.guild.timeZone, i.createdAt),
     };
   }

@@ -266,7 +266,7 @@ export class DuesService {
     const invoices = await this.em.find(
       DuesInvoice,
       { membership: me.id, status: { $ne: 'void' } },
-      { orderBy: { createdAt: 'desc', id: 'desc' } },
+      { orderBy: { createdAt: 'desc', id: 'desc' }, populate: ['createdBy.user'] },
     );
     const open = invoices.find((i) => i.status === 'open' && i.purpose === 'dues');
     // What each plan she could pay for would cost her today, so the page can show the exact lines
@@ -297,6 +297,8 @@ export class DuesService {
         paidOn: i.paidOn ?? null,
         receiptNumber: i.receiptNumber ?? null,
         refundedCents: i.refundedCents,
+        /** Cash and cheques: the officer who recorded the payment for her. */
+        recordedBy: i.method && i.method !== 'card' && i.createdBy && i.createdBy.id !== me.id ? (i.createdBy.user?.name ?? null) : null,
       })),
     };
   }

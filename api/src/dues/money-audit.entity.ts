@@ -12,6 +12,8 @@ export const AUDIT_ACTIONS = [
   'member_plan_changed',
   'settings_changed',
   'household_created',
+  // A departed member's personal data erased; her money records stay under the record name.
+  'member_erased',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 

@@ -53,6 +53,6 @@ export class GuildsController {
     @Param('membershipId', new ParseIntPipe({ errorHttpStatusCode: 404 })) membershipId: number,
     @Body() body: UpdateRolesDto,
   ) {
-    return this.guilds.updateRoles(me, membershipId, body.roles);
+    return this.guilds.updateRoles(me, membershipId, body.roles, body.endsOn);
   }
 }

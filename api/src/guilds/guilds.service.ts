@@ -1,10 +1,10 @@
-import { LockMode } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
-import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { ConflictException, Injectable } from '@nestjs/common';
 import { CreateGuildDto } from './dto/create-guild.dto';
 import { Guild } from './guild.entity';
 import { Membership } from './membership.entity';
-import { leavesGuildWithoutAdmin, normaliseRoles, ROSTER_OFFICERS, hasAnyRole, type Role } from './roles';
+import { ROSTER_OFFICERS, hasAnyRole, type Role } from './roles';
+import { changeRoles, recordFounder } from '../offices/role-change';
 
 export interface MemberRow {
   membershipId: number;
@@ -14,6 +14,10 @@ export interface MemberRow {
   email?: string | null;
   /** Roster officers only: false until she has chosen a password (added by hand or imported). */
   signsIn?: boolean;
+  /** Roster officers only: what she (or they, for a member kept on paper) chose to show other members. */
+  showEmail?: boolean;
+  showPhone?: boolean;
+  showTown?: boolean;
   phone?: string | null;
   town?: string | null;
   status?: string;
@@ -44,6 +48,7 @@ export class GuildsService {
         yearStartMonth: dto.yearStartMonth,
       });
       const membership = em.create(Membership, { user: userId, guild, roles: ['admin'] });
+      recordFounder(em, guild, membership);
       await em.flush();
       return { id: guild.id, name: guild.name, town: guild.town, timeZone: guild.timeZone, currency: guild.currency, unit: guild.unit, yearStartMonth: guild.yearStartMonth, myRoles: membership.roles, myMembershipId: membership.id };
     });
@@ -61,7 +66,7 @@ export class GuildsService {
       const row: MemberRow = { membershipId: m.id, name: u.name, roles: m.roles };
       // Officers who keep the roster see every contact detail; other members see what each chose to show.
       if (officer)
-        Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt, signsIn: Boolean(u.passwordHash) });
+        Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt, signsIn: Boolean(u.passwordHash), showEmail: u.showEmail, showPhone: u.showPhone, showTown: u.showTown });
       else {
         if (u.showEmail && u.email) row.email = u.email;
         if (u.showPhone && u.phone) row.phone = u.phone;
@@ -71,18 +76,11 @@ export class GuildsService {
     });
   }
 
-  async updateRoles(viewer: Membership, membershipId: number, roles: Role[]): Promise<MemberRow> {
-    const next = normaliseRoles(roles);
+  /** Roles are offices with terms (offices/role-change.ts): added ones start today, removed ones end today. */
+  async updateRoles(viewer: Membership, membershipId: number, roles: Role[], endsOn?: string | null): Promise<MemberRow> {
     return this.em.transactional(async (em) => {
-      // Lock the guild's memberships so two admins demoting each other cannot both succeed.
-      const all = await em.find(Membership, { guild: viewer.guild }, { lockMode: LockMode.PESSIMISTIC_WRITE, populate: ['user'] });
-      const target = all.find((m) => m.id === membershipId);
-      if (!target) throw new NotFoundException('That member is not in this guild.');
-      const summary = all.map((m) => ({ id: m.id, roles: m.roles, active: m.status === 'active' }));
-      if (leavesGuildWithoutAdmin(summary, target.id, next))
-        throw new ConflictException('A guild must keep at least one admin. Make someone else admin first.');
-      target.roles = next;
-      await em.flush();
+      // changeRoles locks the guild's memberships, so two admins demoting each other cannot both succeed.
+      const target = await changeRoles(em as EntityManager, viewer, membershipId, roles, endsOn);
       return {
         membershipId: target.id,
         name: target.user.name,

@@ -9,7 +9,7 @@ export type MembershipStatus = 'active' | 'left';
 @Entity({ tableName: 'memberships' })
 @Unique({ properties: ['user', 'guild'] })
 @Index({ properties: ['guild', 'status'] })
-export class Membership extends BaseEntity<'status' | 'roles' | 'joinedAt'> {
+export class Membership extends BaseEntity<'status' | 'roles' | 'joinedAt' | 'leftAt' | 'eraseRequestedAt'> {
   @ManyToOne(() => User, { deleteRule: 'cascade' })
   user!: User;
 
@@ -24,4 +24,11 @@ export class Membership extends BaseEntity<'status' | 'roles' | 'joinedAt'> {
 
   @Property({ type: 'datetime', length: 3 })
   joinedAt: Date = new Date();
+
+  @Property({ type: 'datetime', length: 3, nullable: true })
+  leftAt?: Date | null = null;
+
+  /** She asked, on leaving, for her personal data to be erased (an admin does it). */
+  @Property({ type: 'datetime', length: 3, nullable: true })
+  eraseRequestedAt?: Date | null = null;
 }

@@ -15,6 +15,8 @@ import { appConfig, type AppConfig } from '../config/app.config';
 import { Guild } from '../guilds/guild.entity';
 import { Membership } from '../guilds/membership.entity';
 import { normaliseRoles, type Role } from '../guilds/roles';
+import { todayIn } from '../dues/dues-rules';
+import { OfficeTerm } from '../offices/office-term.entity';
 import { OutboxService } from '../outbox/outbox.service';
 import { User } from '../users/user.entity';
 import { Invitation } from './invitation.entity';
@@ -181,13 +183,22 @@ export class InvitationsService {
         { acceptedAt: new Date() },
       );
       if (claimed !== 1) throw new NotFoundException(GONE);
-      const membership = await em.findOne(Membership, { guild: invitation.guild, user });
+      let membership = await em.findOne(Membership, { guild: invitation.guild, user });
+      const wasActive = membership?.status === 'active';
+      const newRoles = invitation.roles.filter((r) => !wasActive || !membership!.roles.includes(r));
       if (membership) {
         membership.status = 'active';
-        membership.roles = normaliseRoles([...membership.roles, ...invitation.roles]);
+        membership.leftAt = null;
+        membership.eraseRequestedAt = null;
+        membership.roles = normaliseRoles([...(wasActive ? membership.roles : []), ...invitation.roles]);
       } else {
-        em.create(Membership, { user, guild: invitation.guild, roles: invitation.roles, joinedAt: new Date() });
+        membership = em.create(Membership, { user, guild: invitation.guild, roles: invitation.roles, joinedAt: new Date() });
       }
+      // Each office she was invited to is a term from today, so the roles follow the guild's record of
+      // terms (a former officer's ended term would otherwise take the role away again).
+      const today = todayIn(invitation.guild.timeZone);
+      for (const role of newRoles)
+        em.create(OfficeTerm, { guild: invitation.guild, membership, role, startsOn: today, note: 'Given with her invitation' });
       await em.flush();
       await this.outbox.enqueue(em, {
         idempotencyKey: `welcome:${invitation.id}`,

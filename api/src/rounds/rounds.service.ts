@@ -114,7 +114,7 @@ export class RoundsService {
     const rows = await this.em.find(
       RoundBlock,
       seeAll ? { round } : { round, maker: c.me },
-      { populate: ['maker.user'], orderBy: { maker: { user: { name: 'asc' } } } },
+      { populate: ['maker.user', 'maker.user.passwordHash', 'updatedBy'], orderBy: { maker: { user: { name: 'asc' } } } },
     );
     const today = this.today(c);
     const checks = await latestSizeChecks(this.em, rows, c.bee.guild.id);
@@ -130,6 +130,10 @@ export class RoundsService {
       late: isLate(b.status, round.dueDate, today),
       updatedAt: b.statusChangedAt ?? null,
       updatedOnBehalf: b.onBehalf,
+      /** Who set it for her, when someone else did ("marked by …"). */
+      updatedByName: b.onBehalf ? (b.updatedBy?.name ?? null) : null,
+      /** She does not sign in: the queen or the organiser marks her block for her. */
+      onPaper: !b.maker.user.passwordHash,
     };
   }
 
@@ -323,20 +327,21 @@ export class RoundsService {
     return this.em.transactional(async (em) => {
       const c = await this.context(me, beeId, month, em);
       if (!c.round?.sentAt) throw new ConflictException('The round has not gone out to makers yet.');
-      const block = await em.findOne(RoundBlock, { round: c.round, maker: makerId }, { populate: ['maker.user'] });
+      const block = await em.findOne(RoundBlock, { round: c.round, maker: makerId }, { populate: ['maker.user', 'maker.user.passwordHash', 'updatedBy'] });
       if (!block) throw new NotFoundException('That person is not a maker of this round.');
       const own = makerId === me.id;
+      const onPaper = !block.maker.user.passwordHash;
       // The queen marks arrivals (and can undo one); anything else is the maker's own, or the
-      // organiser's on her behalf for a maker who does not use the app.
+      // organiser's (or, for a maker who does not sign in, the queen's) on her behalf.
       const queenAct = c.isQueen && (dto.status === 'received' || block.status === 'received');
-      const allowed = c.isOrganiser || queenAct || (own && dto.status !== 'received' && block.status !== 'received');
+      const allowed = c.isOrganiser || queenAct || (c.isQueen && onPaper) || (own && dto.status !== 'received' && block.status !== 'received');
       if (!allowed)
         throw new ForbiddenException(
           own ? 'The queen marks a block received when it arrives.' : 'You can only mark your own block; the queen marks blocks received.',
         );
       if (dto.status === 'mailed') block.trackingNumber = dto.trackingNumber?.trim() || null;
       block.status = dto.status;
-      block.updatedBy = em.getReference(User, user.id);
+      block.updatedBy = await em.findOneOrFail(User, user.id);
       block.onBehalf = !own && !queenAct;
       block.statusChangedAt = new Date();
       await em.flush();

@@ -7,6 +7,7 @@ import { isDuesOfficer } from '@/config/roles';
 import { useDashboard } from '@/features/dashboard/api/get-dashboard';
 import { useMeta } from '@/features/meta/api/get-meta';
 import { showPaths } from '@/features/shows/lib/paths';
+import { officePaths } from '@/features/offices/lib/paths';
 import { useSignOut, useUser } from '@/lib/auth';
 
 export function AppLayout() {
@@ -20,6 +21,7 @@ export function AppLayout() {
   const guilds = dashboard.data?.guilds ?? [];
   const pagesOf = (g: (typeof guilds)[number]) => [
     { to: paths.members.getHref(g.id), label: 'Members' },
+    { to: officePaths.officers.getHref(g.id), label: 'Officers' },
     { to: paths.bees.getHref(g.id), label: 'Bees' },
     { to: paths.dues.getHref(g.id), label: 'Dues' },
     // The show chair's pages are reached from the show itself.

@@ -4,6 +4,7 @@ import { RouteError } from '@/components/errors/route-error';
 import { PageSpinner } from '@/components/ui/page-spinner';
 import { paths } from '@/config/paths';
 import { showPaths } from '@/features/shows/lib/paths';
+import { officePaths } from '@/features/offices/lib/paths';
 import { RequireAuth } from '@/lib/auth';
 import { AppLayout } from './app-layout';
 
@@ -42,6 +43,8 @@ export const routes: RouteObject[] = [
               { path: paths.home.path, lazy: lazyRoute(() => import('./routes/dashboard')) },
               { path: paths.newGuild.path, lazy: lazyRoute(() => import('./routes/guild-new')) },
               { path: paths.members.path, lazy: lazyRoute(() => import('./routes/members')) },
+              { path: paths.rosterImport.path, lazy: lazyRoute(() => import('./routes/roster-import')) },
+              { path: officePaths.officers.path, lazy: lazyRoute(() => import('./routes/officers')) },
               { path: paths.bees.path, lazy: lazyRoute(() => import('./routes/bees')) },
               { path: paths.bee.path, lazy: lazyRoute(() => import('./routes/bee')) },
               { path: paths.round.path, lazy: lazyRoute(() => import('./routes/round')) },

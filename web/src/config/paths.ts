@@ -38,6 +38,10 @@ export const paths = {
     path: '/guilds/:guildId/members',
     getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/members`,
   },
+  rosterImport: {
+    path: '/guilds/:guildId/members/import',
+    getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/members/import`,
+  },
   bees: {
     path: '/guilds/:guildId/bees',
     getHref: (guildId: string | number) => `/guilds/${encodeURIComponent(String(guildId))}/bees`,

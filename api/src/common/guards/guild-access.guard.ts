@@ -4,6 +4,8 @@ import { Reflector } from '@nestjs/core';
 import type { Request } from 'express';
 import { Membership } from '../../guilds/membership.entity';
 import { hasAnyRole, ROLE_LABELS, type Role } from '../../guilds/roles';
+import { todayIn } from '../../dues/dues-rules';
+import { syncOneMembership } from '../../offices/office-sync';
 import { REQUIRED_ROLES } from '../decorators/roles.decorator';
 
 /**
@@ -39,6 +41,9 @@ export class GuildAccessGuard implements CanActivate {
         )
       : null;
     if (!membership) throw new NotFoundException('No such guild, or you are not a member of it.');
+    // Her roles in force today (a term may have begun or ended since the last sync): one indexed read.
+    const inForce = await syncOneMembership(this.em, membership, todayIn(membership.guild.timeZone));
+    if (inForce !== membership.roles) await this.em.refresh(membership);
     if (roles?.length && !hasAnyRole(membership.roles, roles)) {
       const needed = roles.map((r) => ROLE_LABELS[r]).join(' or ');
       throw new ForbiddenException(`Only the guild's ${needed} can do this.`);

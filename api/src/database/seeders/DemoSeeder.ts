@@ -18,6 +18,7 @@ import { defaultSendAt } from '../../rounds/round-presenter';
 import { Round } from '../../rounds/round.entity';
 import { seedDemoDues } from './demo-dues';
 import { seedDemoShows } from './demo-show';
+import { seedDemoOffices } from './demo-offices';
 
 /** The month `offset` months after `month` (negative for before). */
 function monthsAround(month: string, offset: number): string {
@@ -65,6 +66,8 @@ interface DemoFile {
     unit: 'in' | 'cm';
     yearStartMonth: number;
     members: { name: string; email: string; roles: string[] }[];
+    /** Members kept on paper: no e-mail address, no password; bees list them by `key`. */
+    paperMembers?: { key: string; name: string; phone?: string; town?: string; memberSince: string; showPhone?: boolean; showTown?: boolean }[];
     bees: DemoBee[];
   }[];
 }
@@ -97,8 +100,23 @@ export class DemoSeeder extends Seeder {
           em.create(Membership, { user, guild, roles: normaliseRoles(m.roles), joinedAt: joined }),
         );
       }
+      // Kept apart from `memberships` (keyed by e-mail), which the dues, show and office seeds walk.
+      const paper = new Map<string, Membership>();
+      for (const p of g.paperMembers ?? []) {
+        const user = em.create(User, {
+          email: null,
+          name: p.name,
+          passwordHash: null,
+          phone: p.phone ?? null,
+          town: p.town ?? null,
+          showPhone: p.showPhone ?? false,
+          showTown: p.showTown ?? false,
+        });
+        paper.set(p.key, em.create(Membership, { user, guild, roles: [], joinedAt: new Date(`${p.memberSince}T12:00:00Z`) }));
+      }
       await em.flush();
-      for (const b of g.bees) await this.seedBee(em, guild, b, memberships);
+      await seedDemoOffices(em, guild, memberships, g.key === 'wrenfield');
+      for (const b of g.bees) await this.seedBee(em, guild, b, new Map([...memberships, ...paper]));
       if (g.key === 'wrenfield') {
         await seedDemoDues(em, guild, memberships);
         await seedDemoShows(em, guild, memberships);
@@ -170,7 +188,16 @@ export class DemoSeeder extends Seeder {
         .filter((m) => m.id !== queen.id)
         .forEach((maker, i) => {
           const status = r.statuses?.[i % r.statuses.length] ?? 'not_started';
-          em.create(RoundBlock, { round, maker, status, statusChangedAt: status === 'not_started' ? null : sendAt });
+          // A maker kept on paper has her block marked by the organiser, on the record (the queen marks it received).
+          const onBehalf = maker.user.passwordHash === null && status !== 'not_started' && status !== 'received';
+          em.create(RoundBlock, {
+            round,
+            maker,
+            status,
+            statusChangedAt: status === 'not_started' ? null : sendAt,
+            onBehalf,
+            updatedBy: onBehalf ? bee.organiser.user : maker.user.passwordHash === null && status === 'received' ? queen.user : null,
+          });
         });
     }
   }

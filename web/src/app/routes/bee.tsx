@@ -12,9 +12,10 @@ import { PageSpinner } from '@/components/ui/page-spinner';
 import { usePageTitle } from '@/components/ui/page-title';
 import { paths } from '@/config/paths';
 import { dashboardQueryOptions } from '@/features/dashboard/api/get-dashboard';
-import { beeQueryOptions, useBee, type Bee } from '@/features/bees/api/get-bee';
+import { beeQueryOptions, beeSchedulePdfHref, useBee, type Bee } from '@/features/bees/api/get-bee';
 import { useJoinBee } from '@/features/bees/api/join-bee';
 import { useLeaveBee } from '@/features/bees/api/leave-bee';
+import { AddPaperMakersForm } from '@/features/bees/components/add-paper-makers-form';
 import { BeeMembers } from '@/features/bees/components/bee-members';
 import { InviteMakersForm } from '@/features/bees/components/invite-makers-form';
 import { handoverLabel, myStatusLabel } from '@/features/bees/components/labels';
@@ -96,7 +97,9 @@ export default function BeeRoute() {
   const thisMonth = data.currentMonth ?? currentMonth(guild.data.timeZone);
   const inBee = new Set(data.members.filter((m) => m.status !== 'left').map((m) => String(m.membershipId)));
   inBee.add(String(data.organiser.membershipId));
-  const candidates = (members.data ?? []).filter((m) => !inBee.has(String(m.membershipId)));
+  // Members who do not sign in are added by the organiser (below), never invited.
+  const onPaper = new Set((data.addable ?? []).map((m) => String(m.membershipId)));
+  const candidates = (members.data ?? []).filter((m) => !inBee.has(String(m.membershipId)) && !onPaper.has(String(m.membershipId)));
   const rotationKey = `${data.seed ?? ''}|${data.members.map((m) => `${m.membershipId}:${m.status}`).join(',')}|${data.rotation
     .map((r) => `${r.month}:${r.skipped ? 's' : (r.queen?.membershipId ?? '-')}`)
     .join(',')}`;
@@ -134,6 +137,9 @@ export default function BeeRoute() {
             This month's block ({formatMonth(thisMonth)})
           </Link>
         )}
+        <a href={beeSchedulePdfHref(guildId, String(data.id))} className="btn btn-outline-primary mt-2 ms-sm-2" target="_blank" rel="noopener">
+          Print the schedule (PDF)
+        </a>
       </div>
 
       <Row className="g-4">
@@ -161,6 +167,16 @@ export default function BeeRoute() {
                 {members.isPending && <PageSpinner label="Loading the guild's members" />}
                 {members.isError && <ErrorAlert error={members.error} />}
                 {members.data && <InviteMakersForm guildId={guildId} beeId={beeId} candidates={candidates} />}
+              </Card.Body>
+            </Card>
+          )}
+          {data.isOrganiser && (
+            <Card as="section" aria-labelledby="add-paper-heading" className="mb-4">
+              <Card.Body>
+                <h2 id="add-paper-heading" className="h3 mb-3">
+                  Add a member who does not sign in
+                </h2>
+                <AddPaperMakersForm guildId={guildId} beeId={beeId} candidates={data.addable ?? []} />
               </Card.Body>
             </Card>
           )}

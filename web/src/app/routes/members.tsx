@@ -4,7 +4,7 @@ import Card from 'react-bootstrap/Card';
 import Form from 'react-bootstrap/Form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
-import { useParams, useLocation } from 'react-router-dom';
+import { Link, useParams, useLocation } from 'react-router-dom';
 import { NotFound } from '@/components/errors/not-found';
 import { ErrorAlert } from '@/components/ui/error-alert';
 import { PageSpinner } from '@/components/ui/page-spinner';
@@ -18,7 +18,12 @@ import { EditRolesModal } from '@/features/members/components/edit-roles-modal';
 import { InviteMemberForm } from '@/features/members/components/invite-member-form';
 import { MemberList } from '@/features/members/components/member-list';
 import { PendingInvitations } from '@/features/members/components/pending-invitations';
+import { rosterPdfHref, useUpdateMemberDetails } from '@/features/members/api/paper-members';
+import { AddPaperMemberForm } from '@/features/members/components/add-paper-member-form';
+import { MemberDetailsModal } from '@/features/members/components/member-details-modal';
+import { officePaths } from '@/features/offices/lib/paths';
 import { isApiError } from '@/lib/api-client';
+import { paths } from '@/config/paths';
 
 export default function MembersRoute() {
   const notice = (useLocation().state as { notice?: string } | null)?.notice;
@@ -27,6 +32,8 @@ export default function MembersRoute() {
   const members = useMembers(guildId);
   const updateRoles = useUpdateMemberRoles(guildId, [dashboardQueryOptions().queryKey]);
   const [editing, setEditing] = useState<Member | null>(null);
+  const updateDetails = useUpdateMemberDetails(guildId);
+  const [detailsFor, setDetailsFor] = useState<Member | null>(null);
   const [search, setSearch] = useState('');
   usePageTitle(guild.data ? `${guild.data.name} members` : 'Members');
 
@@ -65,6 +72,17 @@ export default function MembersRoute() {
             Jump to the invitation form
           </a>
         )}
+        <Link to={officePaths.officers.getHref(guildId)} className="btn btn-outline-primary mt-3 ms-sm-2">
+          Officers and their terms
+        </Link>
+        {canInvite && (
+          <Link to={paths.rosterImport.getHref(guildId)} className="btn btn-outline-primary mt-3 ms-sm-2">
+            Import a roster from a spreadsheet
+          </Link>
+        )}
+        <a href={rosterPdfHref(guildId)} className="btn btn-outline-primary mt-3 ms-sm-2" target="_blank" rel="noopener">
+          Print the roster (PDF)
+        </a>
       </div>
       <Row className="g-4">
         <Col lg={canInvite ? 7 : 12}>
@@ -93,6 +111,7 @@ export default function MembersRoute() {
                 members={shown}
                 canEditRoles={isAdmin}
                 onEditRoles={setEditing}
+                onEditDetails={canInvite ? setDetailsFor : undefined}
                 emptyText={needle ? 'No members match your search.' : undefined}
               />}
           </section>
@@ -107,6 +126,14 @@ export default function MembersRoute() {
                 <InviteMemberForm guildId={guildId} guildName={guild.data.name} />
               </Card.Body>
             </Card>
+            <Card as="section" id="add-paper-member" aria-labelledby="paper-heading" className="mb-4">
+              <Card.Body>
+                <h2 id="paper-heading" className="h3 mb-3">
+                  Add a member who has no e-mail
+                </h2>
+                <AddPaperMemberForm guildId={guildId} />
+              </Card.Body>
+            </Card>
             <Card as="section" aria-labelledby="pending-heading">
               <Card.Body>
                 <h2 id="pending-heading" className="h3 mb-3">
@@ -118,11 +145,18 @@ export default function MembersRoute() {
           </Col>
         )}
       </Row>
+      {canInvite && (
+        <MemberDetailsModal
+          member={detailsFor}
+          onHide={() => setDetailsFor(null)}
+          onSave={(member, values) => updateDetails.mutateAsync({ membershipId: member.membershipId, values })}
+        />
+      )}
       {isAdmin && (
         <EditRolesModal
           member={editing}
           onHide={() => setEditing(null)}
-          onSave={(member, roles) => updateRoles.mutateAsync({ membershipId: member.membershipId, roles })}
+          onSave={(member, roles, endsOn) => updateRoles.mutateAsync({ membershipId: member.membershipId, roles, endsOn })}
         />
       )}
     </>

@@ -1,6 +1,7 @@
 import Card from 'react-bootstrap/Card';
 import { env } from '@/config/env';
 import { DirectoryForm } from '@/features/profile/components/directory-form';
+import { LeaveGuildSection } from '@/features/departures/components/leave-guild-section';
 import { MailPreferencesForm } from '@/features/mail-preferences/components/mail-preferences-form';
 import Col from 'react-bootstrap/Col';
 import Row from 'react-bootstrap/Row';
@@ -74,6 +75,14 @@ export default function ProfileRoute() {
                   My data as JSON (for computers)
                 </a>
               </div>
+            </Card.Body>
+          </Card>
+          <Card as="section" aria-labelledby="leave-heading" className="mt-4">
+            <Card.Body>
+              <h2 id="leave-heading" className="h3 mb-3">
+                Leaving a guild
+              </h2>
+              <LeaveGuildSection />
             </Card.Body>
           </Card>
           <Card as="section" aria-labelledby="mail-heading" className="mt-4">

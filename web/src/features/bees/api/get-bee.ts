@@ -1,9 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { env } from '@/config/env';
 import { api } from '@/lib/api-client';
 import { beesPath, beesQueryOptions, type Handover, type MyBeeStatus, type PersonRef } from './get-bees';
 
 export type BeeMemberStatus = 'active' | 'invited' | 'organiser' | 'left';
-export type BeeMember = PersonRef & { status: BeeMemberStatus };
+export type BeeMember = PersonRef & { status: BeeMemberStatus; /** She does not sign in; the organiser acts for her. */ onPaper?: boolean };
 export type RoundStatus = 'draft' | 'published';
 
 export type RotationMonth = {
@@ -37,7 +38,12 @@ export type Bee = {
   seed: string | number | null;
   /** This month in the guild's time zone, "YYYY-MM". */
   currentMonth?: string;
+  /** For the organiser: guild members who do not sign in and are not making yet; she adds them herself. */
+  addable?: PersonRef[];
 };
+
+/** The printed schedule of the bee's year. */
+export const beeSchedulePdfHref = (guildId: string, beeId: string) => `${env.apiBaseUrl}${beePath(guildId, beeId)}/schedule.pdf`;
 
 export const beePath = (guildId: string, beeId: string) => `${beesPath(guildId)}/${encodeURIComponent(beeId)}`;
 

@@ -53,6 +53,10 @@ export type Block = {
   late: boolean;
   updatedAt: string | null;
   updatedOnBehalf: boolean;
+  /** Who set it for her, when someone else did. */
+  updatedByName?: string | null;
+  /** She does not sign in: the queen or the organiser marks her block for her. */
+  onPaper?: boolean;
   /** The latest size check of the block, or null; absent from older api builds. */
   sizeCheck?: SizeCheck | null;
 };

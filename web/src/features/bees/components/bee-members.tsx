@@ -34,6 +34,14 @@ export function BeeMembers({ guildId, bee }: { guildId: string; bee: Bee }) {
                   <Badge bg={member.status === 'invited' ? 'light' : 'primary'} text={member.status === 'invited' ? 'dark' : undefined} className="status-badge border">
                     {isOrganiser ? 'Organiser' : memberStatusLabel(member.status)}
                   </Badge>
+                  {member.onPaper && (
+                    <>
+                      {' '}
+                      <Badge bg="light" text="dark" className="status-badge border">
+                        Kept on paper
+                      </Badge>
+                    </>
+                  )}
                 </div>
                 {bee.isOrganiser && !isOrganiser && (
                   <ConfirmAction

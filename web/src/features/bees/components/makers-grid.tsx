@@ -11,7 +11,7 @@ type MakersGridProps = {
   blocks: Block[];
   /** The queen (and the organiser) can mark blocks received. */
   canMarkReceived: boolean;
-  /** The organiser can set any status on a maker's behalf. */
+  /** The organiser can set any status on a maker's behalf (the queen too, for a maker who does not sign in). */
   canSetOnBehalf: boolean;
   onUpdate: (membershipId: number, input: UpdateBlockInput) => Promise<unknown>;
   onNudge?: () => Promise<{ nudged: number }>;
@@ -135,6 +135,13 @@ export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, 
               <Card className={`h-100 maker-card${block.late ? ' is-late' : ''}`}>
                 <Card.Body className="d-flex flex-column">
                   <h3 className="h5 mb-1">{block.name}</h3>
+                  {block.onPaper && (
+                    <p className="mb-1">
+                      <Badge bg="light" text="dark" className="border status-badge">
+                        Kept on paper
+                      </Badge>
+                    </p>
+                  )}
                   <p className="mb-1">
                     <span className="visually-hidden">Block status: </span>
                     <strong>{blockStatusLabel(block.status)}</strong>{' '}
@@ -149,7 +156,11 @@ export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, 
                       Tracking number: <span className="font-monospace">{block.trackingNumber}</span>
                     </p>
                   )}
-                  {block.updatedOnBehalf && <p className="mb-1 text-body-secondary small">Set by the organiser on her behalf.</p>}
+                  {block.updatedOnBehalf && (
+                    <p className="mb-1 text-body-secondary small">
+                      Marked by {block.updatedByName ?? 'the organiser'} on her behalf.
+                    </p>
+                  )}
                   {renderExtra?.(block)}
                   {canMarkReceived && block.status !== 'received' && (
                     <Button
@@ -160,7 +171,7 @@ export function MakersGrid({ blocks, canMarkReceived, canSetOnBehalf, onUpdate, 
                       Mark received<span className="visually-hidden"> from {block.name}</span>
                     </Button>
                   )}
-                  {canSetOnBehalf && (
+                  {(canSetOnBehalf || (canMarkReceived && block.onPaper)) && (
                     <OnBehalfForm
                       key={`${block.status}-${block.trackingNumber ?? ''}`}
                       block={block}

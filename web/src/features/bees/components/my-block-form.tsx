@@ -52,7 +52,7 @@ export function MyBlockForm({ block, deliveryMethod, onSave }: MyBlockFormProps)
               The due date has passed. If it is on its way, mark it mailed or handed over.
             </p>
           )}
-          {block.updatedOnBehalf && <p className="text-body-secondary">The organiser last set this on your behalf.</p>}
+          {block.updatedOnBehalf && <p className="text-body-secondary">{block.updatedByName ?? 'The organiser'} last set this on your behalf.</p>}
           <FormAlert />
           <RadioGroupField
             name="status"

@@ -30,6 +30,8 @@ export type PaymentRecord = {
   paidOn: string | null;
   receiptNumber: string | null;
   refundedCents: number;
+  /** Cash and cheques: the officer who recorded the payment for her. */
+  recordedBy?: string | null;
 };
 
 export type MyDues = {

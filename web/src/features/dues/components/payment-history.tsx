@@ -31,7 +31,10 @@ export function PaymentHistory({ guildId, history }: { guildId: string; history:
               {formatMoney(row.totalCents, row.currency)}
               {row.refundedCents > 0 && <span className="d-block small">{formatMoney(row.refundedCents, row.currency)} refunded</span>}
             </td>
-            <td data-label="How">{methodLabel(row.method) || '—'}</td>
+            <td data-label="How">
+              {methodLabel(row.method) || '—'}
+              {row.recordedBy && <span className="d-block small">Recorded by {row.recordedBy}</span>}
+            </td>
             <td data-label="Status">{invoiceStatusLabel(row.status)}</td>
             <td data-label="Receipt">
               {hasReceipt(row) ? (

@@ -7,7 +7,12 @@ export type Member = {
   name: string;
   roles: string[];
   /** Officers (admin, membership chair) see these always; other members when the person chose to show them. */
-  email?: string;
+  email?: string | null;
+  /** Officers only: false until she has chosen a password (kept on paper, or not signed in yet). */
+  signsIn?: boolean;
+  showEmail?: boolean;
+  showPhone?: boolean;
+  showTown?: boolean;
   phone?: string | null;
   town?: string | null;
   status?: string;

@@ -1,7 +1,7 @@
 import { Form, Formik } from 'formik';
 import Button from 'react-bootstrap/Button';
 import Modal from 'react-bootstrap/Modal';
-import { CheckboxGroupField } from '@/components/ui/form-fields';
+import { CheckboxGroupField, TextField } from '@/components/ui/form-fields';
 import { FormAlert } from '@/components/ui/form-alert';
 import { applyServerErrors } from '@/components/ui/server-errors';
 import { SubmitButton } from '@/components/ui/submit-button';
@@ -12,13 +12,15 @@ import { memberRolesSchema, type MemberRolesValues } from '../api/update-member-
 type EditRolesModalProps = {
   member: Member | null;
   onHide: () => void;
-  onSave: (member: Member, roles: Role[]) => Promise<unknown>;
+  /** endsOn: for roles being added, the day her access ends ('' = no end date). */
+  onSave: (member: Member, roles: Role[], endsOn: string) => Promise<unknown>;
 };
 
 export function EditRolesModal({ member, onHide, onSave }: EditRolesModalProps) {
   const titleId = 'edit-roles-title';
   const initialValues: MemberRolesValues = {
     roles: (member?.roles ?? []).filter((r): r is Role => (ROLES as readonly string[]).includes(r)),
+    endsOn: '',
   };
   return (
     <Modal show={member !== null} onHide={onHide} aria-labelledby={titleId} centered>
@@ -29,7 +31,7 @@ export function EditRolesModal({ member, onHide, onSave }: EditRolesModalProps) 
           onSubmit={async (values, helpers) => {
             helpers.setStatus(undefined);
             try {
-              await onSave(member, values.roles);
+              await onSave(member, values.roles, values.endsOn);
               onHide();
             } catch (error) {
               applyServerErrors(error, helpers, values);
@@ -49,6 +51,13 @@ export function EditRolesModal({ member, onHide, onSave }: EditRolesModalProps) 
                 legend="Roles"
                 help="Everyone is a member; roles add officer duties on top."
                 options={ROLE_OPTIONS}
+              />
+              <TextField
+                name="endsOn"
+                label="Access ends on"
+                type="date"
+                optional
+                help="Only for roles you tick now. From the start of this day she can no longer act in that role. Leave it empty if there is no end date."
               />
             </Modal.Body>
             <Modal.Footer>

@@ -3,12 +3,15 @@ import Button from 'react-bootstrap/Button';
 import Card from 'react-bootstrap/Card';
 import { roleLabel, statusLabel } from '@/config/roles';
 import type { Member } from '../api/get-members';
+import { paperBadge } from '../api/paper-members';
 
 type MemberListProps = {
   members: Member[];
   canEditRoles: boolean;
   onEditRoles: (member: Member) => void;
   emptyText?: string;
+  /** Officers: change the details of a member who does not sign in. */
+  onEditDetails?: (member: Member) => void;
 };
 
 function formatJoined(iso: string | null | undefined) {
@@ -18,17 +21,25 @@ function formatJoined(iso: string | null | undefined) {
   return date.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
-export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No members yet.' }: MemberListProps) {
+export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No members yet.', onEditDetails }: MemberListProps) {
   if (members.length === 0) return <p>{emptyText}</p>;
   return (
     <ul className="member-list row row-cols-1 row-cols-md-2 g-3" aria-label="Members">
       {members.map((member) => {
         const joined = formatJoined(member.joinedAt);
+        const badge = paperBadge(member);
         return (
           <li key={member.membershipId} className="col" data-testid="member-card">
             <Card className="h-100">
               <Card.Body className="d-flex flex-column">
                 <h3 className="h5 mb-1">{member.name}</h3>
+                {badge && (
+                  <p className="mb-1">
+                    <Badge bg="light" text="dark" className="border paper-badge fs-6 fw-normal" data-testid="paper-badge">
+                      {badge}
+                    </Badge>
+                  </p>
+                )}
                 {member.email && (
                   <p className="mb-1 break-anywhere">
                     <span className="visually-hidden">E-mail: </span>
@@ -69,6 +80,11 @@ export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No
                     {member.status && joined && ' · '}
                     {joined && <>Joined {joined}</>}
                   </p>
+                )}
+                {onEditDetails && member.signsIn === false && (
+                  <Button variant="outline-primary" className={`${canEditRoles ? 'mb-2' : 'mt-auto'} align-self-start`} onClick={() => onEditDetails(member)}>
+                    Edit her details<span className="visually-hidden"> ({member.name})</span>
+                  </Button>
                 )}
                 {canEditRoles && (
                   <Button variant="outline-primary" className="mt-auto align-self-start" onClick={() => onEditRoles(member)}>
