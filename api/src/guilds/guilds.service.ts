@@ -22,6 +22,10 @@ export interface MemberRow {
   town?: string | null;
   status?: string;
   joinedAt?: Date;
+  /** Roster officers only: when she left, whether she asked to be erased, and whether she was. */
+  leftAt?: Date | null;
+  eraseRequestedAt?: Date | null;
+  erased?: boolean;
 }
 
 @Injectable()
@@ -66,7 +70,7 @@ export class GuildsService {
       const row: MemberRow = { membershipId: m.id, name: u.name, roles: m.roles };
       // Officers who keep the roster see every contact detail; other members see what each chose to show.
       if (officer)
-        Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt, signsIn: Boolean(u.passwordHash), showEmail: u.showEmail, showPhone: u.showPhone, showTown: u.showTown });
+        Object.assign(row, { email: u.email, phone: u.phone ?? null, town: u.town ?? null, status: m.status, joinedAt: m.joinedAt, signsIn: Boolean(u.passwordHash), showEmail: u.showEmail, showPhone: u.showPhone, showTown: u.showTown, leftAt: m.leftAt ?? null, eraseRequestedAt: m.eraseRequestedAt ?? null, erased: Boolean(u.erasedAt) });
       else {
         if (u.showEmail && u.email) row.email = u.email;
         if (u.showPhone && u.phone) row.phone = u.phone;

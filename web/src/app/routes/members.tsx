@@ -22,6 +22,8 @@ import { rosterPdfHref, useUpdateMemberDetails } from '@/features/members/api/pa
 import { AddPaperMemberForm } from '@/features/members/components/add-paper-member-form';
 import { MemberDetailsModal } from '@/features/members/components/member-details-modal';
 import { officePaths } from '@/features/offices/lib/paths';
+import { EraseMemberDialog } from '@/features/departures/components/erase-member-dialog';
+import { RecordDepartureDialog } from '@/features/departures/components/record-departure-dialog';
 import { isApiError } from '@/lib/api-client';
 import { paths } from '@/config/paths';
 
@@ -34,6 +36,8 @@ export default function MembersRoute() {
   const [editing, setEditing] = useState<Member | null>(null);
   const updateDetails = useUpdateMemberDetails(guildId);
   const [detailsFor, setDetailsFor] = useState<Member | null>(null);
+  const [departing, setDeparting] = useState<Member | null>(null);
+  const [erasing, setErasing] = useState<Member | null>(null);
   const [search, setSearch] = useState('');
   usePageTitle(guild.data ? `${guild.data.name} members` : 'Members');
 
@@ -51,11 +55,12 @@ export default function MembersRoute() {
   const myRoles = guild.data.myRoles ?? [];
   const isAdmin = myRoles.includes('admin');
   const canInvite = myRoles.some((r) => OFFICER_INVITE_ROLES.includes(r as Role));
-  const count = members.data?.length;
+  // Officers also see those who have left; they come after the current members.
+  const count = members.data?.filter((m) => m.status !== 'left').length;
   const needle = search.trim().toLowerCase();
-  const shown = members.data?.filter(
-    (m) => !needle || m.name.toLowerCase().includes(needle) || m.email?.toLowerCase().includes(needle),
-  );
+  const shown = members.data
+    ?.filter((m) => !needle || m.name.toLowerCase().includes(needle) || m.email?.toLowerCase().includes(needle))
+    .sort((a, b) => Number(a.status === 'left') - Number(b.status === 'left'));
 
   return (
     <>
@@ -103,7 +108,7 @@ export default function MembersRoute() {
                   autoComplete="off"
                 />
                 <Form.Text id="member-search-count" role="status" className="d-block">
-                  {needle ? `${shown?.length ?? 0} of ${count} members match.` : 'Type part of a name or e-mail address.'}
+                  {needle ? `${shown?.length ?? 0} of ${members.data.length} match.` : 'Type part of a name or e-mail address.'}
                 </Form.Text>
               </Form.Group>
             )}
@@ -112,6 +117,8 @@ export default function MembersRoute() {
                 canEditRoles={isAdmin}
                 onEditRoles={setEditing}
                 onEditDetails={canInvite ? setDetailsFor : undefined}
+                onRecordDeparture={canInvite ? setDeparting : undefined}
+                onErase={isAdmin ? setErasing : undefined}
                 emptyText={needle ? 'No members match your search.' : undefined}
               />}
           </section>
@@ -151,6 +158,16 @@ export default function MembersRoute() {
           onHide={() => setDetailsFor(null)}
           onSave={(member, values) => updateDetails.mutateAsync({ membershipId: member.membershipId, values })}
         />
+      )}
+      {canInvite && (
+        <RecordDepartureDialog
+          guildId={guildId}
+          member={departing && { membershipId: Number(departing.membershipId), name: departing.name }}
+          onHide={() => setDeparting(null)}
+        />
+      )}
+      {isAdmin && (
+        <EraseMemberDialog guildId={guildId} member={erasing && { membershipId: Number(erasing.membershipId), name: erasing.name }} onHide={() => setErasing(null)} />
       )}
       {isAdmin && (
         <EditRolesModal

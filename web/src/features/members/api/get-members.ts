@@ -17,6 +17,10 @@ export type Member = {
   town?: string | null;
   status?: string;
   joinedAt?: string | null;
+  /** Officers only: when she left, whether she asked to be erased, and whether she was. */
+  leftAt?: string | null;
+  eraseRequestedAt?: string | null;
+  erased?: boolean;
 };
 
 type MembersResponse = { members: Member[] } | Member[];

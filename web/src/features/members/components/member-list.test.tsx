@@ -1,4 +1,4 @@
-import { render, screen, within } from '@testing-library/react';
+import { fireEvent, render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { MemberList } from './member-list';
 
@@ -19,5 +19,35 @@ describe('MemberList', () => {
     expect(first).toHaveTextContent('Town: Wrenfield');
     expect(within(second).queryByRole('link')).toBeNull();
     expect(second).not.toHaveTextContent('Town');
+  });
+
+  it('offers officers "She has left" for a member without office, and admins the erase for one who has gone', () => {
+    const departed: unknown[] = [];
+    const erased: unknown[] = [];
+    render(
+      <MemberList
+        canEditRoles
+        onEditRoles={() => undefined}
+        onRecordDeparture={(m) => departed.push(m.membershipId)}
+        onErase={(m) => erased.push(m.membershipId)}
+        members={[
+          { membershipId: 1, name: 'Ottoline Marsh', roles: [], status: 'active' },
+          { membershipId: 2, name: 'Bea Thistle', roles: ['treasurer'], status: 'active' },
+          { membershipId: 3, name: 'Pim Alder', roles: [], status: 'left', leftAt: '2026-11-20T10:00:00.000Z', eraseRequestedAt: '2026-11-20T10:00:00.000Z' },
+          { membershipId: 4, name: 'Former member 4', roles: [], status: 'left', erased: true },
+        ]}
+      />,
+    );
+    const [ottoline, bea, pim, former] = screen.getAllByTestId('member-card');
+    fireEvent.click(within(ottoline).getByRole('button', { name: /^She has left.*Ottoline Marsh/ }));
+    expect(departed).toEqual([1]);
+    // An officer in office hands it on first.
+    expect(within(bea).queryByRole('button', { name: /She has left/ })).toBeNull();
+    expect(within(pim).getByTestId('departure-note')).toHaveTextContent('She asked for her details to be erased.');
+    expect(within(pim).queryByRole('button', { name: /Change roles/ })).toBeNull();
+    fireEvent.click(within(pim).getByRole('button', { name: /^Erase her personal data.*Pim Alder/ }));
+    expect(erased).toEqual([3]);
+    expect(within(former).getByTestId('departure-note')).toHaveTextContent('Left; her personal data was erased.');
+    expect(within(former).queryByRole('button')).toBeNull();
   });
 });

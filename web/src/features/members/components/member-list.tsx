@@ -12,6 +12,10 @@ type MemberListProps = {
   emptyText?: string;
   /** Officers: change the details of a member who does not sign in. */
   onEditDetails?: (member: Member) => void;
+  /** Roster officers: record that a member has left. */
+  onRecordDeparture?: (member: Member) => void;
+  /** Admins: erase a departed member's personal data. */
+  onErase?: (member: Member) => void;
 };
 
 function formatJoined(iso: string | null | undefined) {
@@ -21,13 +25,15 @@ function formatJoined(iso: string | null | undefined) {
   return date.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
-export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No members yet.', onEditDetails }: MemberListProps) {
+export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No members yet.', onEditDetails, onRecordDeparture, onErase }: MemberListProps) {
   if (members.length === 0) return <p>{emptyText}</p>;
   return (
     <ul className="member-list row row-cols-1 row-cols-md-2 g-3" aria-label="Members">
       {members.map((member) => {
         const joined = formatJoined(member.joinedAt);
-        const badge = paperBadge(member);
+        const gone = member.status === 'left';
+        const left = gone ? formatJoined(member.leftAt) : null;
+        const badge = gone ? null : paperBadge(member);
         return (
           <li key={member.membershipId} className="col" data-testid="member-card">
             <Card className="h-100">
@@ -81,14 +87,30 @@ export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No
                     {joined && <>Joined {joined}</>}
                   </p>
                 )}
-                {onEditDetails && member.signsIn === false && (
+                {gone && (
+                  <p className="mb-2" data-testid="departure-note">
+                    {member.erased ? 'Left; her personal data was erased.' : `Left${left ? ` on ${left}` : ''}.`}
+                    {!member.erased && member.eraseRequestedAt && <strong className="d-block">She asked for her details to be erased.</strong>}
+                  </p>
+                )}
+                {gone && onErase && !member.erased && (
+                  <Button variant="outline-danger" className="mt-auto align-self-start" onClick={() => onErase(member)}>
+                    Erase her personal data<span className="visually-hidden"> ({member.name})</span>
+                  </Button>
+                )}
+                {!gone && onEditDetails && member.signsIn === false && (
                   <Button variant="outline-primary" className={`${canEditRoles ? 'mb-2' : 'mt-auto'} align-self-start`} onClick={() => onEditDetails(member)}>
                     Edit her details<span className="visually-hidden"> ({member.name})</span>
                   </Button>
                 )}
-                {canEditRoles && (
-                  <Button variant="outline-primary" className="mt-auto align-self-start" onClick={() => onEditRoles(member)}>
+                {!gone && canEditRoles && (
+                  <Button variant="outline-primary" className={`${onRecordDeparture ? 'mb-2' : ''} mt-auto align-self-start`} onClick={() => onEditRoles(member)}>
                     Change roles<span className="visually-hidden"> for {member.name}</span>
+                  </Button>
+                )}
+                {!gone && onRecordDeparture && member.roles.length === 0 && (
+                  <Button variant="outline-secondary" className={`${canEditRoles ? '' : 'mt-auto'} align-self-start`} onClick={() => onRecordDeparture(member)}>
+                    She has left<span className="visually-hidden"> ({member.name})</span>
                   </Button>
                 )}
               </Card.Body>
