@@ -65,7 +65,8 @@ interface DemoFile {
     currency: string;
     unit: 'in' | 'cm';
     yearStartMonth: number;
-    members: { name: string; email: string; roles: string[] }[];
+    /** `leftDaysAgo`: she has left the guild (and with `eraseRequested`, asked to be erased). */
+    members: { name: string; email: string; roles: string[]; leftDaysAgo?: number; eraseRequested?: boolean }[];
     /** Members kept on paper: no e-mail address, no password; bees list them by `key`. */
     paperMembers?: { key: string; name: string; phone?: string; town?: string; memberSince: string; showPhone?: boolean; showTown?: boolean }[];
     bees: DemoBee[];
@@ -120,6 +121,14 @@ export class DemoSeeder extends Seeder {
       if (g.key === 'wrenfield') {
         await seedDemoDues(em, guild, memberships);
         await seedDemoShows(em, guild, memberships);
+      }
+      // Members who have left go last, once the dues and shows have their history with them.
+      for (const m of g.members.filter((x) => x.leftDaysAgo !== undefined)) {
+        const membership = memberships.get(m.email)!;
+        const leftAt = new Date(Date.now() - m.leftDaysAgo! * 24 * 3600 * 1000);
+        membership.status = 'left';
+        membership.leftAt = leftAt;
+        if (m.eraseRequested) membership.eraseRequestedAt = leftAt;
       }
     }
     await em.flush();

@@ -21,7 +21,7 @@ describe('MemberList', () => {
     expect(second).not.toHaveTextContent('Town');
   });
 
-  it('offers officers "She has left" for a member without office, and admins the erase for one who has gone', () => {
+  it('offers officers "Record that she left" for a member without office, and admins the erase for one who has gone', () => {
     const departed: unknown[] = [];
     const erased: unknown[] = [];
     render(
@@ -39,10 +39,10 @@ describe('MemberList', () => {
       />,
     );
     const [ottoline, bea, pim, former] = screen.getAllByTestId('member-card');
-    fireEvent.click(within(ottoline).getByRole('button', { name: /^She has left.*Ottoline Marsh/ }));
+    fireEvent.click(within(ottoline).getByRole('button', { name: /^Record that she left.*Ottoline Marsh/ }));
     expect(departed).toEqual([1]);
     // An officer in office hands it on first.
-    expect(within(bea).queryByRole('button', { name: /She has left/ })).toBeNull();
+    expect(within(bea).queryByRole('button', { name: /Record that she left/ })).toBeNull();
     expect(within(pim).getByTestId('departure-note')).toHaveTextContent('She asked for her details to be erased.');
     expect(within(pim).queryByRole('button', { name: /Change roles/ })).toBeNull();
     fireEvent.click(within(pim).getByRole('button', { name: /^Erase her personal data.*Pim Alder/ }));

@@ -110,7 +110,7 @@ export function MemberList({ members, canEditRoles, onEditRoles, emptyText = 'No
                 )}
                 {!gone && onRecordDeparture && member.roles.length === 0 && (
                   <Button variant="outline-secondary" className={`${canEditRoles ? '' : 'mt-auto'} align-self-start`} onClick={() => onRecordDeparture(member)}>
-                    She has left<span className="visually-hidden"> ({member.name})</span>
+                    Record that she left<span className="visually-hidden"> ({member.name})</span>
                   </Button>
                 )}
               </Card.Body>
