@@ -1,4 +1,4 @@
-import { ApiProperty } from '@nestjs/swagger';
+import { ApiProperty, PartialType, PickType } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import { IsBoolean, IsEmail, IsIn, IsOptional, IsString, Matches, MaxLength, ValidateBy, ValidateIf } from 'class-validator';
 
@@ -72,51 +72,11 @@ export class CreatePaperMemberDto {
 }
 
 /** Changes to the details of a member who does not sign in; fields left out stay as they are. */
-export class UpdateMemberDetailsDto {
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @trimmed()
-  @NameField()
-  name?: string;
-
-  @ApiProperty({ required: false, nullable: true })
-  @blankIsNull()
-  @IsOptional()
-  @ValidateIf(present)
-  @IsEmail({}, { message: EMAIL_MESSAGE })
-  @MaxLength(254, { message: 'That e-mail address is too long.' })
-  email?: string | null;
-
-  @ApiProperty({ required: false, nullable: true })
-  @blankIsNull()
-  @IsOptional()
-  @ValidateIf(present)
-  @IsString({ message: 'Write the phone number as text.' })
-  @Matches(PHONE_PATTERN, { message: PHONE_MESSAGE })
-  phone?: string | null;
-
-  @ApiProperty({ required: false, nullable: true })
-  @blankIsNull()
-  @IsOptional()
-  @ValidateIf(present)
-  @IsString({ message: 'Write the town as text.' })
-  @MaxLength(120, { message: 'Use at most 120 characters.' })
-  town?: string | null;
-
+export class UpdateMemberDetailsDto extends PartialType(PickType(CreatePaperMemberDto, ['name', 'email', 'phone', 'town', 'showPhone', 'showTown'] as const)) {
   @ApiProperty({ required: false })
   @IsOptional()
   @IsBoolean({ message: 'Say whether members may see her e-mail address.' })
   showEmail?: boolean;
-
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @IsBoolean({ message: 'Say whether members may see her phone number.' })
-  showPhone?: boolean;
-
-  @ApiProperty({ required: false })
-  @IsOptional()
-  @IsBoolean({ message: 'Say whether members may see her town.' })
-  showTown?: boolean;
 }
 
 export class RosterPdfQueryDto {
