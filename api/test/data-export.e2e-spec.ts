@@ -30,6 +30,13 @@ describe('my data export', () => {
     expect(data.memberships).toEqual([expect.objectContaining({ guild: s.guild.name, status: 'active' })]);
     expect(data.showEntries).toEqual([expect.objectContaining({ show_name: 'Harvest Show', title: 'Harbour at Dawn', category: 'Medium', status: 'accepted', story: 'For my sister.' })]);
     expect(data.showsVotedIn).toEqual([expect.objectContaining({ show_name: 'Harvest Show' })]);
+    expect(data.officesHeld).toEqual([]);
+    // The treasurer's export lists her office, from the term the guild holds.
+    const treasurerAgent = await signIn(t, s.treasurer.email);
+    // The scenario wrote her role without a term; her first visit to the guild records one from today.
+    await treasurerAgent.get(`/api/guilds/${s.guild.id}`).expect(200);
+    const treasurer = (await treasurerAgent.get('/api/profile/export.json').expect(200)).body;
+    expect(treasurer.officesHeld).toEqual([expect.objectContaining({ guild: s.guild.name, role: 'treasurer', access_ends_on: null })]);
     expect(JSON.stringify(data)).not.toContain("Someone else's quilt");
     expect(JSON.stringify(data)).not.toContain(s.admin.email);
 
@@ -39,6 +46,7 @@ describe('my data export', () => {
     expect(text).toContain('Harbour at Dawn');
     expect(text).toContain(s.member.email);
     expect(text).toContain('stored without any link to the voter');
+    expect(text).toContain('Offices you held');
 
     await client(t).get('/api/profile/export.json').expect(401);
   });

@@ -48,6 +48,13 @@ export class DataExportService {
              FROM show_entries e JOIN shows s ON s.id = e.show_id JOIN show_categories c ON c.id = e.category_id WHERE e.membership_id IN ${inList} ORDER BY e.id`,
           ids,
         );
+    const offices = none
+      ? []
+      : await q(
+          `SELECT g.name AS guild, t.role, DATE_FORMAT(t.starts_on, '%Y-%m-%d') AS starts_on, DATE_FORMAT(t.ends_on, '%Y-%m-%d') AS access_ends_on, t.note
+             FROM office_terms t JOIN guilds g ON g.id = t.guild_id WHERE t.membership_id IN ${inList} ORDER BY t.starts_on, t.id`,
+          ids,
+        );
     const voted = none
       ? []
       : await q(`SELECT s.name AS show_name, v.cast_at FROM show_voters v JOIN shows s ON s.id = v.show_id WHERE v.voter_key IN (${ids.map(() => '?').join(', ')}) ORDER BY v.id`, ids.map((id) => `member:${id}`));
@@ -61,6 +68,7 @@ export class DataExportService {
       duesAndFees: invoices,
       showEntries: entries,
       showsVotedIn: voted,
+      officesHeld: offices,
       note: 'Viewer’s choice ballots are stored without any link to the voter, so what you chose cannot be looked up or exported.',
     };
   }
@@ -95,6 +103,7 @@ export class DataExportService {
     section('Dues and fees', data.duesAndFees);
     section('Quilt show entries', data.showEntries);
     section('Shows you voted in', data.showsVotedIn);
+    section('Offices you held', data.officesHeld);
     text(data.note, 'regular', 11);
     doc.end();
     return done;
