@@ -6,7 +6,8 @@ import { duesHref, duesPath, duesQueryKey, toQueryString } from './dues-path';
 export type RosterRow = {
   membershipId: number;
   name: string;
-  email: string;
+  /** Null for a member kept on paper. */
+  email: string | null;
   planName?: string | null;
   /** Her plan, where the api gives it as an object. */
   plan?: { id: number; name: string; kind: string } | null;

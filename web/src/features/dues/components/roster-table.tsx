@@ -33,7 +33,7 @@ export function RosterTable({ rows, recordHref }: RosterTableProps) {
           <tr key={row.membershipId} data-testid="roster-row">
             <th scope="row">{row.name}</th>
             <td data-label="E-mail" className="break-anywhere">
-              <a href={`mailto:${row.email}`}>{row.email}</a>
+              {row.email ? <a href={`mailto:${row.email}`}>{row.email}</a> : <span className="text-body-secondary">No e-mail (kept on paper)</span>}
             </td>
             <td data-label="Plan">{rosterPlanName(row) ?? 'No plan'}</td>
             <td data-label="Status">
