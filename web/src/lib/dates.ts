@@ -16,6 +16,15 @@ export function formatMonth(month: string): string {
   return date.toLocaleDateString('en-GB', { month: 'long', year: 'numeric', timeZone: 'UTC' });
 }
 
+/** "2026-09-01" → "1 September 2026": the month written out, so day and month cannot be mixed up. */
+export function formatDay(value: string | null | undefined): string {
+  if (!value) return '';
+  const m = value.match(DATE_RE);
+  if (!m) return value;
+  const date = new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])));
+  return date.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+}
+
 /** "2027-03-15" → "Monday 15 March 2027". */
 export function formatDate(value: string | null | undefined): string {
   if (!value) return '';

@@ -8,12 +8,7 @@ function utcDate(value: string): Date | null {
 }
 
 /** "2026-09-01" → "1 September 2026" (no weekday: short enough for a table). */
-export function formatDay(value: string | null | undefined): string {
-  if (!value) return '';
-  const date = utcDate(value);
-  if (!date) return value;
-  return date.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
-}
+export { formatDay } from '@/lib/dates';
 
 /** "2026-09-01" → "1 Sept 2026", for tables with many columns. */
 export function formatDayShort(value: string | null | undefined): string {

@@ -1,3 +1,4 @@
+import { formatDay } from '@/lib/dates';
 import { Form as FormikForm, Formik, useFormikContext } from 'formik';
 import { useEffect, useId, useRef } from 'react';
 import Badge from 'react-bootstrap/Badge';
@@ -66,8 +67,8 @@ function RowDetails({ row }: { row: PreviewRow }) {
     v.phone,
     v.town,
     v.household && `household ${v.household}`,
-    v.memberSince && `member since ${v.memberSince}`,
-    v.paidThrough && `paid through ${v.paidThrough}`,
+    v.memberSince && `member since ${formatDay(v.memberSince)}`,
+    v.paidThrough && `paid through ${formatDay(v.paidThrough)}`,
     v.roles.length ? v.roles.map(roleLabel).join(', ') : null,
   ].filter(Boolean);
   return (
