@@ -276,7 +276,7 @@ export class RosterImportService {
       ).map((r) => Number(r.user_id)),
     );
     const standingOf = new Map(standings.map((s) => [s.membership.id, s]));
-    const snapshot: RosterSnapshot = { membersByEmail: new Map(), paperMembersByName: new Map(), accountsByEmail: new Map() };
+    const snapshot: RosterSnapshot = { membersByEmail: new Map(), paperMembersByName: new Map(), emailMembersByName: new Map(), accountsByEmail: new Map() };
     for (const m of memberships) {
       const u = m.user;
       const st = standingOf.get(m.id);
@@ -295,8 +295,11 @@ export class RosterImportService {
         household: st?.household?.name ?? null,
         paidThrough: st?.paidThrough ?? null,
       };
-      if (u.email) snapshot.membersByEmail.set(u.email, member);
-      else {
+      if (u.email) {
+        snapshot.membersByEmail.set(u.email, member);
+        const key = nameKey(u.name);
+        snapshot.emailMembersByName!.set(key, [...(snapshot.emailMembersByName!.get(key) ?? []), member]);
+      } else {
         const key = nameKey(u.name);
         snapshot.paperMembersByName.set(key, [...(snapshot.paperMembersByName.get(key) ?? []), member]);
       }

@@ -10,9 +10,12 @@ const member = (over: Partial<ExistingMember>): ExistingMember => ({
   status: 'active', joinedOn: '2020-01-01', roles: [], household: null, paidThrough: null, ...over,
 });
 const snapshot = (members: ExistingMember[], accounts: { userId: number; email: string; hasPassword: boolean }[] = []): RosterSnapshot => {
-  const snap: RosterSnapshot = { membersByEmail: new Map(), paperMembersByName: new Map(), accountsByEmail: new Map() };
+  const snap: RosterSnapshot = { membersByEmail: new Map(), paperMembersByName: new Map(), emailMembersByName: new Map(), accountsByEmail: new Map() };
   for (const m of members) {
-    if (m.email) snap.membersByEmail.set(m.email, m);
+    if (m.email) {
+      snap.membersByEmail.set(m.email, m);
+      snap.emailMembersByName!.set(m.name.toLowerCase(), [m]);
+    }
     else snap.paperMembersByName.set(m.name.toLowerCase(), [...(snap.paperMembersByName.get(m.name.toLowerCase()) ?? []), m]);
   }
   for (const a of accounts) snap.accountsByEmail.set(a.email, a);
@@ -74,5 +77,13 @@ describe('planning an import', () => {
     expect(countPlans([{ action: 'skip' }, { action: 'new', account: null }, { action: 'new', account: null }, { action: 'unchanged', member: member({}) }])).toEqual({
       rows: 4, new: 2, update: 0, unchanged: 1, problems: 1,
     });
+  });
+
+  it('will not add a second record for a member who has an e-mail when the row has none', () => {
+    const c = candidate({ name: 'ada quill' });
+    expect(planRow(c, snapshot([member({ email: 'ada@example.org' })]))).toEqual({ action: 'skip' });
+    expect(c.problems).toEqual(['The guild already has a member called “ada quill” with the e-mail ada@example.org. If this is her, add that e-mail to the row; if not, tell them apart in the name.']);
+    // With her e-mail the same row updates her.
+    expect(planRow(candidate({ name: 'Ada Quill', email: 'ada@example.org' }), snapshot([member({ email: 'ada@example.org' })])).action).toBe('unchanged');
   });
 });

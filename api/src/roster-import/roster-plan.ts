@@ -31,6 +31,8 @@ export interface RosterSnapshot {
   membersByEmail: Map<string, ExistingMember>;
   /** This guild's members kept without an e-mail, by lower-cased name. */
   paperMembersByName: Map<string, ExistingMember[]>;
+  /** This guild's members who have an e-mail, by lower-cased name: a row without one may be one of them. */
+  emailMembersByName?: Map<string, ExistingMember[]>;
   accountsByEmail: Map<string, ExistingAccount>;
 }
 
@@ -69,7 +71,16 @@ export function planRow(c: RosterCandidate, snap: RosterSnapshot): RowPlan {
       return { action: 'skip' };
     }
     member = matches[0];
-    if (!member) return { action: 'new', account: null };
+    if (!member) {
+      // Without an e-mail the row cannot say she is the member of that name who has one; adding her
+      // again would make two of her, so the admin decides.
+      const namesake = snap.emailMembersByName?.get(nameKey(c.name))?.[0];
+      if (namesake) {
+        c.problems.push(`The guild already has a member called “${c.name}” with the e-mail ${namesake.email}. If this is her, add that e-mail to the row; if not, tell them apart in the name.`);
+        return { action: 'skip' };
+      }
+      return { action: 'new', account: null };
+    }
   }
   const changes: FieldChange[] = [];
   const set = (field: ChangeField, from: string | null, to: string | null) => {
