@@ -86,6 +86,9 @@ describe('Officers page', () => {
     await user.click(screen.getByRole('button', { name: 'Hand over' }));
     expect(await screen.findByText('Treasurer passes to June Pettigrew on 1 January 2027.')).toBeInTheDocument();
     expect(requestBody(fetchMock, HANDOVER)).toEqual({ role: 'treasurer', fromMembershipId: 2, toMembershipId: 5, on: '2027-01-01' });
+    // Starting the next handover clears the confirmation, so it never sits above a new mistake.
+    await user.selectOptions(screen.getByLabelText('Office'), 'Treasurer');
+    await waitFor(() => expect(screen.queryByText('Treasurer passes to June Pettigrew on 1 January 2027.')).not.toBeInTheDocument());
   });
 
   it('shows why the api refused a handover', async () => {

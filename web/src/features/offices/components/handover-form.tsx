@@ -1,8 +1,8 @@
 import { Form, Formik, useFormikContext } from 'formik';
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import { SelectField, TextField } from '@/components/ui/form-fields';
 import { FormAlert } from '@/components/ui/form-alert';
-import { applyServerErrors } from '@/components/ui/server-errors';
+import { applyServerErrors, type FormStatus } from '@/components/ui/server-errors';
 import { SubmitButton } from '@/components/ui/submit-button';
 import type { Office } from '../api/get-offices';
 import { handoverSchema, type HandoverInput, type HandoverValues } from '../api/hand-over';
@@ -33,6 +33,18 @@ function FromField({ offices }: { offices: Office[] }) {
   );
 }
 
+/** The last handover's confirmation goes once she starts the next one, so it never sits above a new error. */
+function ClearDoneOnEdit() {
+  const { values, status, setStatus } = useFormikContext<HandoverValues>();
+  const shown = useRef<{ status: unknown; values: HandoverValues } | null>(null);
+  useEffect(() => {
+    if (!(status as FormStatus)?.success) return;
+    if (shown.current?.status !== status) shown.current = { status, values };
+    else if (shown.current?.values !== values) setStatus(undefined);
+  }, [values, status, setStatus]);
+  return null;
+}
+
 export function HandoverForm({ offices, members, today, onSubmit }: HandoverFormProps) {
   const initialValues: HandoverValues = { role: '', fromMembershipId: '', toMembershipId: '', on: today };
   return (
@@ -61,6 +73,7 @@ export function HandoverForm({ offices, members, today, onSubmit }: HandoverForm
     >
       <Form noValidate aria-labelledby="handover-heading">
         <FormAlert />
+        <ClearDoneOnEdit />
         <SelectField name="role" label="Office" placeholder="Choose the office" options={offices.map((o) => ({ value: o.role, label: o.label }))} />
         <FromField offices={offices} />
         <SelectField
