@@ -166,6 +166,9 @@ describe('offices and terms', () => {
     const patched = await admin.patch(`${url}/${term.id}`).send({ note: 'Acting chair' }).expect(200);
     expect(patched.body).toMatchObject({ note: 'Acting chair', endsOn: day(-10) });
     await admin.patch(`${url}/999999`).send({ note: 'x' }).expect(404);
+    // A day that does not exist, or a note too long, is a 400 with the field named.
+    expect((await admin.patch(`${url}/${term.id}`).send({ startsOn: '2026-02-30' }).expect(400)).body.errors.startsOn).toBeDefined();
+    expect((await admin.patch(`${url}/${term.id}`).send({ note: 'x'.repeat(301) }).expect(400)).body.errors.note).toBeDefined();
   });
 
   it('never leaves the guild without an admin in force', async () => {
