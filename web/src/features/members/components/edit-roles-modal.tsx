@@ -1,10 +1,5 @@
-import { Form, Formik } from 'formik';
-import Button from 'react-bootstrap/Button';
-import Modal from 'react-bootstrap/Modal';
 import { CheckboxGroupField, TextField } from '@/components/ui/form-fields';
-import { FormAlert } from '@/components/ui/form-alert';
-import { applyServerErrors } from '@/components/ui/server-errors';
-import { SubmitButton } from '@/components/ui/submit-button';
+import { FormModal } from '@/components/ui/form-modal';
 import { ROLE_OPTIONS, ROLES, type Role } from '@/config/roles';
 import type { Member } from '../api/get-members';
 import { memberRolesSchema, type MemberRolesValues } from '../api/update-member-roles';
@@ -17,58 +12,29 @@ type EditRolesModalProps = {
 };
 
 export function EditRolesModal({ member, onHide, onSave }: EditRolesModalProps) {
-  const titleId = 'edit-roles-title';
   const initialValues: MemberRolesValues = {
     roles: (member?.roles ?? []).filter((r): r is Role => (ROLES as readonly string[]).includes(r)),
     endsOn: '',
   };
   return (
-    <Modal show={member !== null} onHide={onHide} aria-labelledby={titleId} centered>
-      {member && (
-        <Formik
-          initialValues={initialValues}
-          validationSchema={memberRolesSchema}
-          onSubmit={async (values, helpers) => {
-            helpers.setStatus(undefined);
-            try {
-              await onSave(member, values.roles, values.endsOn);
-              onHide();
-            } catch (error) {
-              applyServerErrors(error, helpers, values);
-            }
-          }}
-        >
-          <Form noValidate aria-labelledby={titleId}>
-            <Modal.Header closeButton closeLabel="Close without saving">
-              <Modal.Title id={titleId} as="h2" className="h4">
-                Roles for {member.name}
-              </Modal.Title>
-            </Modal.Header>
-            <Modal.Body>
-              <FormAlert />
-              <CheckboxGroupField
-                name="roles"
-                legend="Roles"
-                help="Everyone is a member; roles add officer duties on top."
-                options={ROLE_OPTIONS}
-              />
-              <TextField
-                name="endsOn"
-                label="Access ends on"
-                type="date"
-                optional
-                help="Only for roles you tick now. From the start of this day she can no longer act in that role. Leave it empty if there is no end date."
-              />
-            </Modal.Body>
-            <Modal.Footer>
-              <Button variant="outline-secondary" onClick={onHide}>
-                Cancel
-              </Button>
-              <SubmitButton busyLabel="Saving">Save roles</SubmitButton>
-            </Modal.Footer>
-          </Form>
-        </Formik>
-      )}
-    </Modal>
+    <FormModal
+      show={member !== null}
+      onHide={onHide}
+      titleId="edit-roles-title"
+      title={<>Roles for {member?.name}</>}
+      initialValues={initialValues}
+      validationSchema={memberRolesSchema}
+      onSubmit={(values) => onSave(member!, values.roles, values.endsOn)}
+      submitLabel="Save roles"
+    >
+      <CheckboxGroupField name="roles" legend="Roles" help="Everyone is a member; roles add officer duties on top." options={ROLE_OPTIONS} />
+      <TextField
+        name="endsOn"
+        label="Access ends on"
+        type="date"
+        optional
+        help="Only for roles you tick now. From the start of this day she can no longer act in that role. Leave it empty if there is no end date."
+      />
+    </FormModal>
   );
 }

@@ -1,10 +1,5 @@
-import { Form, Formik } from 'formik';
-import Button from 'react-bootstrap/Button';
-import Modal from 'react-bootstrap/Modal';
 import { TextareaField, TextField } from '@/components/ui/form-fields';
-import { FormAlert } from '@/components/ui/form-alert';
-import { applyServerErrors } from '@/components/ui/server-errors';
-import { SubmitButton } from '@/components/ui/submit-button';
+import { FormModal } from '@/components/ui/form-modal';
 import type { Term } from '../api/get-offices';
 import { termDatesSchema, type TermDatesValues, type UpdateTermInput } from '../api/update-term';
 
@@ -16,50 +11,26 @@ type TermDatesModalProps = {
 
 /** "Set term dates": the first day in office, the day access ends (optional) and a note. */
 export function TermDatesModal({ term, onHide, onSave }: TermDatesModalProps) {
-  const titleId = 'term-dates-title';
   return (
-    <Modal show={term !== null} onHide={onHide} aria-labelledby={titleId} centered>
-      {term && (
-        <Formik<TermDatesValues>
-          initialValues={{ startsOn: term.startsOn, endsOn: term.endsOn ?? '', note: term.note }}
-          validationSchema={termDatesSchema}
-          onSubmit={async (values, helpers) => {
-            helpers.setStatus(undefined);
-            try {
-              await onSave(term, { startsOn: values.startsOn, endsOn: values.endsOn || null, note: values.note.trim() });
-              onHide();
-            } catch (error) {
-              applyServerErrors(error, helpers, values);
-            }
-          }}
-        >
-          <Form noValidate aria-labelledby={titleId}>
-            <Modal.Header closeButton closeLabel="Close without saving">
-              <Modal.Title id={titleId} as="h2" className="h4">
-                {term.roleLabel}: {term.name}
-              </Modal.Title>
-            </Modal.Header>
-            <Modal.Body>
-              <FormAlert />
-              <TextField name="startsOn" label="First day in office" type="date" />
-              <TextField
-                name="endsOn"
-                label="Access ends on"
-                type="date"
-                optional
-                help="She can no longer act in this office from the start of this day. Leave it empty if there is no end date."
-              />
-              <TextareaField name="note" label="Note" optional rows={2} />
-            </Modal.Body>
-            <Modal.Footer>
-              <Button variant="outline-secondary" onClick={onHide}>
-                Cancel
-              </Button>
-              <SubmitButton busyLabel="Saving">Save dates</SubmitButton>
-            </Modal.Footer>
-          </Form>
-        </Formik>
-      )}
-    </Modal>
+    <FormModal<TermDatesValues>
+      show={term !== null}
+      onHide={onHide}
+      titleId="term-dates-title"
+      title={term && `${term.roleLabel}: ${term.name}`}
+      initialValues={{ startsOn: term?.startsOn ?? '', endsOn: term?.endsOn ?? '', note: term?.note ?? '' }}
+      validationSchema={termDatesSchema}
+      onSubmit={(values) => onSave(term!, { startsOn: values.startsOn, endsOn: values.endsOn || null, note: values.note.trim() })}
+      submitLabel="Save dates"
+    >
+      <TextField name="startsOn" label="First day in office" type="date" />
+      <TextField
+        name="endsOn"
+        label="Access ends on"
+        type="date"
+        optional
+        help="She can no longer act in this office from the start of this day. Leave it empty if there is no end date."
+      />
+      <TextareaField name="note" label="Note" optional rows={2} />
+    </FormModal>
   );
 }
