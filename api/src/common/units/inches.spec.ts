@@ -133,6 +133,9 @@ describe('millimetres', () => {
     expect(MM_PER_INCH).toBe(25.4); // TRADE.md §2.3, S39
     expect(inchesToMm(1)).toBe(25.4); // TRADE.md §2.3, S39
     expect(mmToInches(25.4)).toBe(1);
+    // 76.2 / 25.4 is 3.0000000000000004 in binary floating point; the api must say 3.
+    expect(mmToInches(76.2)).toBe(3);
+    expect(mmToInches(roundMm(inchesToMm(60.5)))).toBe(60.5);
   });
 
   it('rounds to thousandths like DECIMAL(10,3)', () => {

@@ -102,8 +102,12 @@ export function inchesToMm(inches: number): number {
   return inches * MM_PER_INCH;
 }
 
+/**
+ * Twelve significant figures drop the binary noise of the division (76.2 mm is 3 in, not
+ * 3.0000000000000004) while keeping far more precision than the stored thousandths of a millimetre.
+ */
 export function mmToInches(mm: number): number {
-  return mm / MM_PER_INCH;
+  return Number((mm / MM_PER_INCH).toPrecision(12));
 }
 
 /** Matches DECIMAL(10,3) storage, so what we compute equals what we later read back. */

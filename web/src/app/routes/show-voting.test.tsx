@@ -1,7 +1,7 @@
 import { act, screen, waitFor, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import type { Results } from '@/features/shows/api/types';
-import { ballot, guild, show, turnout } from '@/features/shows/testing/fixtures';
+import { ballot, entry, guild, show, turnout } from '@/features/shows/testing/fixtures';
 import { jsonResponse, mockFetch, renderWithProviders, requestBody } from '@/testing/test-utils';
 import ShowVotingRoute from './show-voting';
 
@@ -85,6 +85,21 @@ describe('Ballot desk', () => {
     await user.click(within(form).getByRole('button', { name: 'Record this paper ballot' }));
     expect(await within(form).findByTestId('paper-error')).toHaveTextContent('That code has already been used.');
     expect(code).toHaveFocus();
+  });
+
+  it('before opening, says which quilts will miss the ballot and that entries will stop', async () => {
+    const { user, fetchMock } = renderDesk({
+      ...base('not_open'),
+      'GET /api/guilds/1/shows/2/entries?status=submitted': jsonResponse(200, [entry, { ...entry, id: 902 }]),
+      'POST /api/guilds/1/shows/2/voting/open': jsonResponse(200, { ...show, canManage: true, votingState: 'open' }),
+    });
+    await waitFor(() => expect(asked(fetchMock, 'status=submitted')).toBe(1));
+    await user.click(await screen.findByRole('button', { name: 'Open voting now' }));
+    expect(await screen.findByText('2 quilts are still waiting for your review and will not be on the ballot.')).toBeInTheDocument();
+    expect(screen.getByText('Entries are still open: once voting opens, the show takes no more entries.')).toBeInTheDocument();
+    expect(asked(fetchMock, '/voting/open')).toBe(0);
+    await user.click(screen.getByRole('button', { name: 'Yes, open voting' }));
+    await waitFor(() => expect(asked(fetchMock, '/voting/open')).toBe(1));
   });
 
   it('closes voting only after the chair confirms that closing is final', async () => {

@@ -7,6 +7,7 @@ import { usePageTitle } from '@/components/ui/page-title';
 import type { Guild } from '@/features/members/api/get-guild';
 import { useBallot, useRecordPaperBallot } from '@/features/shows/api/ballot';
 import { useCodeBatches, useCreateCodes } from '@/features/shows/api/ballot-codes';
+import { useEntries } from '@/features/shows/api/get-entries';
 import { ballotsCsvHref, resultsCsvHref, resultsPdfHref } from '@/features/shows/api/downloads';
 import { usePublishResults, useRecordDecision, useRemoveDecision, useResults } from '@/features/shows/api/results';
 import { useTurnout } from '@/features/shows/api/get-turnout';
@@ -29,9 +30,32 @@ type VotingControlsProps = {
   onSet: (action: 'open' | 'close') => Promise<unknown>;
   busy: boolean;
   error: unknown;
+  /** Quilts entered but not yet accepted or declined: they stay off the ballot. */
+  waitingForReview: number;
 };
 
-function VotingControls({ show, state, timeZone, onSet, busy, error }: VotingControlsProps) {
+/** What opening voting leaves behind, said before the chair confirms. */
+function openingQuestion(show: Show, waitingForReview: number) {
+  const left: string[] = [];
+  if (waitingForReview > 0) {
+    left.push(
+      `${waitingForReview} ${waitingForReview === 1 ? 'quilt is' : 'quilts are'} still waiting for your review and will not be on the ballot.`,
+    );
+  }
+  if (show.entryWindow === 'open') left.push('Entries are still open: once voting opens, the show takes no more entries.');
+  return (
+    <>
+      Open voting now? Members and visitors can vote straight away, and how people vote can no longer be changed.
+      {left.map((line) => (
+        <strong key={line} className="d-block mt-2">
+          {line}
+        </strong>
+      ))}
+    </>
+  );
+}
+
+function VotingControls({ show, state, timeZone, onSet, busy, error, waitingForReview }: VotingControlsProps) {
   const words = VOTING_STATE[state] ?? { label: state, tone: 'none' as const };
   return (
     <>
@@ -47,7 +71,7 @@ function VotingControls({ show, state, timeZone, onSet, busy, error }: VotingCon
         <ConfirmAction
           label="Open voting now"
           variant="primary"
-          question="Open voting now? Members and visitors can vote straight away, and how people vote can no longer be changed."
+          question={openingQuestion(show, waitingForReview)}
           confirmLabel="Yes, open voting"
           busy={busy}
           onConfirm={() => onSet('open')}
@@ -73,6 +97,8 @@ function DeskPage({ guild, show }: { guild: Guild; show: Show }) {
   const turnout = useTurnout(guildId, showId);
   const state: VotingState = turnout.data?.state ?? show.votingState;
   const setVoting = useSetVoting(guildId, showId);
+  const beforeOpening = state === 'not_open' || state === 'scheduled';
+  const waiting = useEntries(guildId, showId, 'submitted', { enabled: beforeOpening });
   const batches = useCodeBatches(guildId, showId);
   const createCodes = useCreateCodes(guildId, showId);
   const ballot = useBallot(guildId, showId, { enabled: state === 'open' });
@@ -96,6 +122,7 @@ function DeskPage({ guild, show }: { guild: Guild; show: Show }) {
           onSet={(action) => setVoting.mutateAsync(action).then(() => turnout.refetch())}
           busy={setVoting.isPending}
           error={setVoting.error}
+          waitingForReview={beforeOpening ? (waiting.data?.length ?? 0) : 0}
         />
       </section>
 
