@@ -174,10 +174,15 @@ describe('quilt show: set-up and entries', () => {
   });
 
   it('prints hang tags (makers hidden until judging is done), the entry list as PDF and CSV', async () => {
-    const { s, chair, member, base, medium, large } = await world();
+    const { s, chair, member, base, medium, large, group } = await world();
     const showId = Number(base.split('/').pop());
     await acceptedEntry(chair, s.guild.id, showId, medium, 'Wren Song', ['50', '60'], ['Ottoline Marsh', 'Bea Thistle']);
     await acceptedEntry(chair, s.guild.id, showId, large, 'Hollow Oak', ['70', '80 1/4'], ['Ida Fenwick']);
+    const bee = await chair
+      .post(`${base}/entries`)
+      .send({ categoryId: group, title: 'Bee Stars', widthIn: '60', heightIn: '60', makers: ['Ann', 'Bet', 'Cis'], forSale: true, priceCents: 18050 })
+      .expect(201);
+    await chair.post(`${base}/entries/${bee.body.id}/review`).send({ decision: 'accept' }).expect(200);
     await member.post(`${base}/entries`).send({ categoryId: medium, title: 'Still waiting', widthIn: '50', heightIn: '60', makers: ['Me'] }).expect(201);
     await chair.post(`${base}/entries/number`).send({ startAt: 7 }).expect(200);
     const binary = (r: import('supertest').Response) => r.body as Buffer;
@@ -189,16 +194,21 @@ describe('quilt show: set-up and entries', () => {
     const shown = pdfText(binary(await chair.get(`${base}/hang-tags.pdf?hideMakers=0`).buffer(true).expect(200)));
     expect(shown).toContain('Ottoline Marsh');
     expect(shown).toContain('70 x 80 1/4 in');
+    // The group category is exhibit only: tags and list say so, so nobody judges it by mistake.
+    expect(shown).toContain('Category: Group quilts (exhibit only)');
+    expect(shown).toContain('For sale: $180.50');
     await member.get(`${base}/hang-tags.pdf`).expect(403);
     const list = pdfText(binary(await chair.get(`${base}/entries.pdf`).buffer(true).expect(200)));
-    for (const title of ['Wren Song', 'Hollow Oak', 'Still waiting']) expect(list).toContain(title);
+    for (const title of ['Wren Song', 'Hollow Oak', 'Still waiting', 'Group quilts (exhibit only)']) expect(list).toContain(title);
     const csv = parse((await chair.get(`${base}/entries.csv`).expect(200)).text.replace(/^\uFEFF/, ''), { columns: true }) as Record<string, string>[];
     expect(csv.map((r) => [r['Entry number'], r.Title, r.Status])).toEqual([
       ['7', 'Wren Song', 'Accepted'],
       ['', 'Still waiting', 'Submitted'],
       ['8', 'Hollow Oak', 'Accepted'],
+      ['9', 'Bee Stars', 'Accepted'],
     ]);
     expect(csv[0].Makers).toBe('Ottoline Marsh; Bea Thistle');
+    expect(csv[3].Price).toBe('180.50');
   });
 
   it('withdraws an entry and frees its number', async () => {

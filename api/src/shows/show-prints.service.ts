@@ -3,11 +3,13 @@ import { Inject, Injectable, NotFoundException } from '@nestjs/common';
 import { formatInches, mmToInches } from '../common/units/inches';
 import { appConfig, type AppConfig } from '../config/app.config';
 import { toCsv } from '../dues/csv';
+import { centsToDecimalString, minorUnitDigits } from '../dues/money';
 import { formatDate, todayIn } from '../dues/dues-rules';
 import { Membership } from '../guilds/membership.entity';
 import { formatBallotCode } from './ballot-code';
 import { renderBallotCards, renderEntryList, renderHangTags, renderResults, statusLabel } from './pdf';
 import { sortEntries } from './show-entries.service';
+import type { ShowCategory } from './show-category.entity';
 import { ShowEntry } from './show-entry.entity';
 import { sizeText } from './show-presenter';
 import { ShowsService } from './shows.service';
@@ -19,6 +21,11 @@ export interface PrintedFile {
 }
 
 const slug = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'show';
+
+/** The category as printed on tags and lists: an exhibit-only one says so, for the judges and the hangers. */
+export function printedCategory(c: Pick<ShowCategory, 'name' | 'judged'>): string {
+  return c.judged ? c.name : `${c.name} (exhibit only)`;
+}
 
 /** The show's printed sheets: hang tags, the entry list (PDF and CSV), visitor ballot cards and results. */
 @Injectable()
@@ -42,7 +49,7 @@ export class ShowPrintsService {
       entries: entries.map((e) => ({
         entryNumber: e.entryNumber ?? null,
         title: e.title,
-        categoryName: e.category.name,
+        categoryName: printedCategory(e.category),
         sizeText: sizeText(e.widthMm, e.heightMm),
         makers: e.makers,
         quilter: e.quilter,
@@ -69,7 +76,7 @@ export class ShowPrintsService {
       datesText: show.startsOn === show.endsOn ? formatDate(show.startsOn) : `${formatDate(show.startsOn)} to ${formatDate(show.endsOn)}`,
       printedOn: formatDate(todayIn(show.guild.timeZone)),
       categories: categories.map((c) => ({
-        name: c.name,
+        name: printedCategory(c),
         entries: entries
           .filter((e) => e.category.id === c.id)
           .map((e) => ({
@@ -102,7 +109,7 @@ export class ShowPrintsService {
           statusLabel(e.status),
           e.membership.user.name,
           e.forSale ? 'yes' : 'no',
-          e.priceCents != null ? (e.priceCents / 100).toFixed(2) : null,
+          e.priceCents != null ? centsToDecimalString(e.priceCents, minorUnitDigits(show.guild.currency)) : null,
           e.techniques,
           e.story,
         ];
