@@ -45,6 +45,12 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     expect(kind.body.message).toContain('can no longer change');
     await chair.post(`${base}/categories`).send({ name: 'Late category' }).expect(409);
     await chair.post(`${base}/entries/${m[0]}/review`).send({ decision: 'decline', reason: 'x' }).expect(409);
+    // The numbers are on the hang tags and paper ballots now; entries have closed whatever the dates say.
+    const renumber = await chair.patch(`${base}/entries/${m[0]}`).send({ entryNumber: 99 }).expect(409);
+    expect(renumber.body.message).toContain('entry numbers stay as they are');
+    expect((await chair.patch(`${base}/entries/${m[0]}`).send({ title: 'Corrected title' }).expect(200)).body.title).toBe('Corrected title');
+    await chair.patch(`${base}/entries/${m[0]}`).send({ title: 'Cedar Path' }).expect(200);
+    expect((await member.get(base).expect(200)).body.entryWindow).toBe('closed');
 
     const ballot = (await member.get(`${base}/ballot`).expect(200)).body;
     expect(ballot.hasVoted).toBe(false);

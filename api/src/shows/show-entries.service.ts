@@ -160,6 +160,8 @@ export class ShowEntriesService {
       const started = state === 'open' || state === 'closed';
       if (started && dto.categoryId !== undefined && dto.categoryId !== entry.category.id)
         throw new ConflictException('Voting has opened: entries can no longer move between categories.');
+      if (started && dto.entryNumber !== undefined && dto.entryNumber !== (entry.entryNumber ?? null))
+        throw new ConflictException('Voting has opened: entry numbers stay as they are on the hang tags and ballots.');
       const category = dto.categoryId !== undefined ? await this.categoryOf(tx, show, dto.categoryId) : entry.category;
       const widthMm = dto.widthIn !== undefined ? roundMm(inchesToMm(inchesField(dto.widthIn))) : entry.widthMm;
       const heightMm = dto.heightIn !== undefined ? roundMm(inchesToMm(inchesField(dto.heightIn))) : entry.heightMm;

@@ -27,7 +27,10 @@ export function sizeRuleOf(c: ShowCategory): SizeRule {
   return { kind: 'none' };
 }
 
+/** Whether the show takes entries today; once voting has opened the ballot is fixed, so entries are closed whatever the dates say. */
 export function entryWindow(show: Show, today: string): 'not_yet' | 'open' | 'closed' {
+  const voting = votingState(show);
+  if (voting === 'open' || voting === 'closed') return 'closed';
   if (show.entriesOpenOn && today < show.entriesOpenOn) return 'not_yet';
   if (show.entriesCloseOn && today > show.entriesCloseOn) return 'closed';
   if (!show.entriesOpenOn && !show.entriesCloseOn && today > show.endsOn) return 'closed';

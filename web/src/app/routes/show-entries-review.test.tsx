@@ -32,6 +32,17 @@ function renderReview(extra: Parameters<typeof mockFetch>[0] = {}, route = '/gui
 }
 
 describe('Entries review', () => {
+  it('once voting has opened, offers no review, moves or numbering, only corrections', async () => {
+    renderReview({ 'GET /api/guilds/1/shows/2': jsonResponse(200, { ...show, canManage: true, votingState: 'open' }) });
+    const rows = await screen.findAllByTestId('review-row');
+    expect(screen.getByText(/Voting has opened, so the quilts on the ballot/)).toBeInTheDocument();
+    for (const name of [/^Accept/, /^Decline/, /^Category or number/, 'Number all accepted entries', 'Enter a quilt for a member']) {
+      expect(screen.queryByRole('button', { name })).not.toBeInTheDocument();
+      expect(screen.queryByRole('link', { name })).not.toBeInTheDocument();
+    }
+    expect(within(rows[0]).getByRole('link', { name: /^Edit details/ })).toBeInTheDocument();
+  });
+
   it('lists entries with size problems, filters by status and builds the download links', async () => {
     const { user, router } = renderReview();
     const rows = await screen.findAllByTestId('review-row');

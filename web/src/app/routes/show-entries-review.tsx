@@ -37,6 +37,7 @@ function ReviewPage({ guild, show }: { guild: Guild; show: Show }) {
   const [hideMakers, setHideMakers] = useState(show.makersHidden);
   const [announcement, setAnnouncement] = useState((location.state as { notice?: string } | null)?.notice ?? '');
   usePageTitle(`Entries, ${show.name}`);
+  const ballotFixed = show.votingState === 'open' || show.votingState === 'closed';
 
   const accept = (entry: Entry) => {
     setAnnouncement('');
@@ -46,29 +47,38 @@ function ReviewPage({ guild, show }: { guild: Guild; show: Show }) {
   return (
     <>
       <ChairPageHeader guildId={guildId} show={show} title="Entries" />
-      <div className="d-flex flex-wrap gap-2 mb-3">
-        <Link to={showPaths.enter.getHref(guildId, showId)} className="btn btn-outline-primary">
-          Enter a quilt for a member
-        </Link>
-        <Button
-          variant="outline-primary"
-          disabled={numberAll.isPending}
-          onClick={() => {
-            setAnnouncement('');
-            numberAll.mutate(undefined, {
-              onSuccess: (numbered) =>
-                setAnnouncement(
-                  numbered.length
-                    ? `Numbered ${numbered.length} accepted ${numbered.length === 1 ? 'entry' : 'entries'}.`
-                    : 'Every accepted entry already has a number.',
-                ),
-            });
-          }}
-        >
-          {numberAll.isPending ? 'Numbering…' : 'Number all accepted entries'}
-        </Button>
-      </div>
-      <p className="form-text">Numbers go to accepted entries that have none yet, category by category. Numbers already given stay.</p>
+      {ballotFixed ? (
+        <Alert variant="info" className="text-body">
+          Voting has opened, so the quilts on the ballot, their categories and their numbers stay as they are. You can still correct a title or
+          other details.
+        </Alert>
+      ) : (
+        <>
+          <div className="d-flex flex-wrap gap-2 mb-3">
+            <Link to={showPaths.enter.getHref(guildId, showId)} className="btn btn-outline-primary">
+              Enter a quilt for a member
+            </Link>
+            <Button
+              variant="outline-primary"
+              disabled={numberAll.isPending}
+              onClick={() => {
+                setAnnouncement('');
+                numberAll.mutate(undefined, {
+                  onSuccess: (numbered) =>
+                    setAnnouncement(
+                      numbered.length
+                        ? `Numbered ${numbered.length} accepted ${numbered.length === 1 ? 'entry' : 'entries'}.`
+                        : 'Every accepted entry already has a number.',
+                    ),
+                });
+              }}
+            >
+              {numberAll.isPending ? 'Numbering…' : 'Number all accepted entries'}
+            </Button>
+          </div>
+          <p className="form-text">Numbers go to accepted entries that have none yet, category by category. Numbers already given stay.</p>
+        </>
+      )}
 
       <section aria-labelledby="downloads-heading" className="downloads mb-4">
         <h2 id="downloads-heading" className="h4">
@@ -133,6 +143,7 @@ function ReviewPage({ guild, show }: { guild: Guild; show: Show }) {
               entries={entries.data}
               currency={show.currency}
               busy={review.isPending}
+              ballotFixed={ballotFixed}
               onAccept={accept}
               onDecline={(entry) => {
                 setAnnouncement('');

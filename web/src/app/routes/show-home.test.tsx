@@ -58,7 +58,7 @@ describe('Show page', () => {
   it('links to published results', async () => {
     renderShow({ votingState: 'closed', resultsPublished: true, entryWindow: 'closed' });
     expect(await screen.findByRole('link', { name: 'See the results' })).toHaveAttribute('href', '/guilds/1/shows/2/results');
-    expect(screen.getByText('Entries are closed.')).toBeInTheDocument();
+    expect(screen.getByText('Entries are closed: voting has opened.')).toBeInTheDocument();
     expect(screen.queryByRole('link', { name: 'Enter a quilt' })).not.toBeInTheDocument();
   });
 

@@ -73,9 +73,11 @@ function EnterButton({ guildId, show }: { guildId: string; show: Show }) {
       <p className="fs-5">
         {show.entryWindow === 'not_yet'
           ? `Entries are not open yet${show.entriesOpenOn ? `. They open on ${formatDay(show.entriesOpenOn)}` : ''}.`
-          : 'Entries are closed.'}
+          : show.votingState === 'open' || show.votingState === 'closed'
+            ? 'Entries are closed: voting has opened.'
+            : 'Entries are closed.'}
       </p>
-      {show.canManage && (
+      {show.canManage && show.votingState !== 'open' && show.votingState !== 'closed' && (
         <Link to={href} className="btn btn-outline-primary mb-3">
           Enter a quilt for a member
         </Link>

@@ -12,13 +12,15 @@ type EntriesReviewTableProps = {
   entries: Entry[];
   currency: string;
   busy?: boolean;
+  /** Voting has opened: the ballot's quilts, their categories and numbers can no longer change. */
+  ballotFixed?: boolean;
   onAccept: (entry: Entry) => void;
   onDecline: (entry: Entry) => void;
   onChange: (entry: Entry) => void;
 };
 
 /** Every entry with what the chair can do to it; one card per entry on a phone. */
-export function EntriesReviewTable({ guildId, showId, entries, currency, busy, onAccept, onDecline, onChange }: EntriesReviewTableProps) {
+export function EntriesReviewTable({ guildId, showId, entries, currency, busy, ballotFixed = false, onAccept, onDecline, onChange }: EntriesReviewTableProps) {
   if (entries.length === 0) return <p className="fs-5">No entries here.</p>;
   return (
     <table className="table stack-table stack-table-wide entries-table">
@@ -72,17 +74,17 @@ export function EntriesReviewTable({ guildId, showId, entries, currency, busy, o
               </td>
               <td data-label="Actions" className="no-label">
                 <div className="d-flex flex-wrap gap-2">
-                  {(entry.status === 'submitted' || entry.status === 'declined') && (
+                  {!ballotFixed && (entry.status === 'submitted' || entry.status === 'declined') && (
                     <Button variant="primary" disabled={busy} onClick={() => onAccept(entry)}>
                       Accept<span className="visually-hidden"> {entry.title}</span>
                     </Button>
                   )}
-                  {(entry.status === 'submitted' || entry.status === 'accepted') && (
+                  {!ballotFixed && (entry.status === 'submitted' || entry.status === 'accepted') && (
                     <Button variant="outline-danger" disabled={busy} onClick={() => onDecline(entry)}>
                       Decline…<span className="visually-hidden"> {entry.title}</span>
                     </Button>
                   )}
-                  {entry.status !== 'withdrawn' && (
+                  {!ballotFixed && entry.status !== 'withdrawn' && (
                     <Button variant="outline-primary" onClick={() => onChange(entry)}>
                       Category or number…<span className="visually-hidden"> of {entry.title}</span>
                     </Button>
