@@ -68,6 +68,40 @@ describe('bad input gets a clear 4xx and writes nothing (real MariaDB)', () => {
     expect(res.status).toBe(413);
   });
 
+  it('refuses null where a field can only be left out, and names of spaces only, without a 500', async () => {
+    const admin = await signIn(t, s.admin.email);
+    const g = `/api/guilds/${s.guild.id}`;
+    const bee = (await admin.post(`${g}/bees`).send({ name: 'Tuesday Bee', handover: 'mail', startMonth: '2031-01', months: 6 }).expect(201)).body;
+    for (const field of ['name', 'description', 'handover']) {
+      const r = await admin.patch(`${g}/bees/${bee.id}`).send({ [field]: null });
+      expect([r.status, field, Object.keys(r.body.errors ?? {})]).toEqual([400, field, [field]]);
+    }
+    await admin.patch(`${g}/bees/${bee.id}`).send({ name: '   ' }).expect(400);
+    expect((await admin.get(`${g}/bees/${bee.id}`).expect(200)).body.name).toBe('Tuesday Bee');
+
+    const paper = (await admin.post(`${g}/members`).send({ name: 'Nell Quarry' }).expect(201)).body;
+    const memberId = paper.membershipId ?? paper.id;
+    for (const field of ['name', 'showPhone', 'showTown', 'showEmail']) {
+      const r = await admin.patch(`${g}/members/${memberId}/details`).send({ [field]: null });
+      expect([r.status, field]).toEqual([400, field]);
+    }
+    await admin.patch(`${g}/members/${memberId}/details`).send({ name: '  ' }).expect(400);
+
+    await admin.post('/api/guilds').send({ name: '   ', town: '   ', timeZone: 'America/Chicago', currency: 'USD', unit: 'in' }).expect(400);
+    const member = await signIn(t, s.member.email);
+    await member.patch('/api/profile').send({ name: '   ' }).expect(400);
+    expect((await member.get('/api/profile').expect(200)).body.name).toBe(s.member.user.name);
+
+    // The layout planner: a null inch field is "not given", a word is a 400.
+    const layout = { blockCount: 12, blockWidth: '12 1/2', blockHeight: '12 1/2' };
+    await member.post('/api/layout-plans').send({ ...layout, sashing: null, bindingWidth: null }).expect(200);
+    expect((await member.post('/api/layout-plans').send({ ...layout, sashing: 'wide' }).expect(400)).body.message).toBeTruthy();
+
+    // Bodies that are not forms.
+    const list = await client(t).post('/api/auth/sign-in').send([{ email: 'x@y.org' }]).expect(400);
+    expect(list.body.message).toContain('JSON object');
+  });
+
   it('answers unknown API paths with a JSON 404, not the web app', async () => {
     const res = await request(t.http).get('/api/no-such-thing');
     expect(res.status).toBe(404);

@@ -60,6 +60,66 @@ describe('quilt show: set-up and entries', () => {
     expect(showId).toBeGreaterThan(0);
   });
 
+  it('answers nonsense with a 4xx it can act on and saves none of it', async () => {
+    const { s, chair, member, g, base, medium, large } = await world();
+    const showId = Number(base.split('/').pop());
+    const entry = (await member.post(`${base}/entries`).send({ categoryId: medium, title: 'Plain Sailing', widthIn: '50', heightIn: '60', makers: ['Me'] }).expect(201)).body;
+    const before = (await chair.get(base).expect(200)).body;
+    // null where a field may be left out but not emptied: each its own message, never a 500.
+    for (const field of ['name', 'venue', 'description', 'startsOn', 'entryFeeCents', 'votingKind', 'rankDepth', 'makersHidden', 'sleeveDepthIn']) {
+      const r = await chair.patch(base).send({ [field]: null });
+      expect([r.status, field]).toEqual([400, field]);
+      expect(r.body.errors[field]).toHaveLength(1);
+    }
+    for (const field of ['title', 'quilter', 'story', 'widthIn', 'makers', 'forSale']) {
+      const r = await member.patch(`${base}/entries/${entry.id}`).send({ [field]: null });
+      expect([r.status, field]).toEqual([400, field]);
+    }
+    for (const field of ['name', 'description', 'judged', 'sortOrder', 'sizeRule']) {
+      const r = await chair.patch(`${base}/categories/${large}`).send({ [field]: null });
+      expect([r.status, field]).toEqual([400, field]);
+    }
+    // Spaces only are empty.
+    const blank = await chair.post(`/api/guilds/${g}/shows`).send({ name: '   ', venue: ' \t ', startsOn: '2030-05-14', endsOn: '2030-05-15' }).expect(400);
+    expect(blank.body.errors).toEqual({ name: ['Give the show a name.'], venue: ['Say where the show is.'] });
+    await member.patch(`${base}/entries/${entry.id}`).send({ title: '   ' }).expect(400);
+    await member.patch(`${base}/entries/${entry.id}`).send({ makers: ['  '] }).expect(400);
+    // Dates and money that cannot work.
+    const late = await chair.patch(base).send({ entriesOpenOn: '2030-06-01', entriesCloseOn: null }).expect(400);
+    expect(late.body.errors.entriesOpenOn).toEqual(["Entries must open on or before the show's last day."]);
+    const cap = await chair.patch(base).send({ entryFeeCents: 500, entryFeeCapCents: 100 }).expect(400);
+    expect(cap.body.errors.entryFeeCapCents).toEqual(['The most one member pays cannot be less than the fee for one quilt.']);
+    // Bodies that are not forms.
+    expect((await chair.patch(base).send([{ name: 'x' }]).expect(400)).body.message).toContain('JSON object');
+    let deep: Record<string, unknown> = {};
+    const nested = { name: 'Deep', extra: deep };
+    for (let i = 0; i < 1000; i++) deep = (deep.a = {}) as Record<string, unknown>;
+    expect((await chair.patch(base).send(nested).expect(400)).body.message).toContain('nested too deeply');
+    // Addresses and queries.
+    expect((await chair.get(`/api/guilds/${g}/shows/abc`).expect(404)).body.message).toBe('There is nothing at that address. Check the link.');
+    await chair.get(`${base}/entries?status=accepted,bogus`).expect(400);
+    await chair.get(`${base}/hang-tags.pdf?hideMakers=maybe`).expect(400);
+    // Nothing above was saved.
+    const after = (await chair.get(base).expect(200)).body;
+    expect(after).toEqual(before);
+    expect((await member.get(`${base}/entries/mine`).expect(200)).body[0]).toMatchObject({ title: 'Plain Sailing', makers: ['Me'], widthText: '50' });
+    expect(s.guild.id).toBe(g);
+    expect(showId).toBeGreaterThan(0);
+  });
+
+  it('shows a quilt\'s photo to other members only once it is accepted', async () => {
+    const { s, chair, member, base, medium } = await world();
+    const e = (await member.post(`${base}/entries`).send({ categoryId: medium, title: 'Snapshot', widthIn: '50', heightIn: '60', makers: ['Me'] }).expect(201)).body.id;
+    const png = await new Jimp({ width: 400, height: 480, color: 0x8f3a6eff }).getBuffer('image/png');
+    await member.post(`${base}/entries/${e}/photo`).attach('photo', png, { filename: 'q.png', contentType: 'image/png' }).expect(200);
+    const other = await signIn(t, s.treasurer.email);
+    await other.get(`${base}/entries/${e}/photo`).expect(404);
+    await member.get(`${base}/entries/${e}/photo`).expect(200);
+    await chair.get(`${base}/entries/${e}/photo`).expect(200);
+    await chair.post(`${base}/entries/${e}/review`).send({ decision: 'accept' }).expect(200);
+    await other.get(`${base}/entries/${e}/photo`).expect(200);
+  });
+
   it('takes an entry in fractions of an inch, checks the size rule and says by how much it fails', async () => {
     const { member, base, medium, large, group } = await world();
     const ok = await member

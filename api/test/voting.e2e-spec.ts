@@ -160,8 +160,8 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     const tries: [unknown, string][] = [
       [{ categories: { [medium]: [m[0], m[1]] } }, 'Vote for one quilt in Medium; you chose 2.'],
       [{ categories: { [medium]: [l[0]] } }, 'is in Large, not Medium.'],
-      [{ categories: { [group]: [m[0]] } }, 'names a category that is not in this show'], // no accepted entries, not on the ballot
-      [{ categories: { 999999: [m[0]] } }, 'names a category that is not in this show'],
+      [{ categories: { [group]: [m[0]] } }, 'names a category that has no quilts on this ballot'], // no accepted entries, not on the ballot
+      [{ categories: { 999999: [m[0]] } }, 'names a category that has no quilts on this ballot'],
       [{ categories: { [medium]: [123456789] } }, "not on this show's ballot"],
       [{ categories: { [medium]: ['x'] } }, 'lists something that is not a quilt'],
       [{ categories: {} }, 'Choose at least one quilt'],
@@ -274,8 +274,13 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     expect(bad.body.errors.votingClosesAt).toEqual(['Voting must close after it opens.']);
     expect((await chair.patch(base).send({ votingOpensAt: soon }).expect(200)).body.votingState).toBe('scheduled');
     await member.post(`${base}/ballot`).send({ choices: { categories: { [show.medium]: [a] } } }).expect(409);
-    // Opening time reached (set just past), closing a few seconds away.
-    await chair.patch(base).send({ votingOpensAt: new Date(Date.now() - 1000).toISOString(), votingClosesAt: new Date(Date.now() + 4000).toISOString() }).expect(200);
+    // A time already past would open voting without the checks that opening by hand makes.
+    const past = await chair.patch(base).send({ votingOpensAt: new Date(Date.now() - 1000).toISOString() }).expect(400);
+    expect(past.body.errors.votingOpensAt).toEqual(['Choose an opening time in the future, or open voting now from the ballot desk.']);
+    expect((await chair.get(base).expect(200)).body.votingState).toBe('scheduled');
+    // The opening time arrives (the clock is moved in the database), then closing is set a few seconds away.
+    await t.orm.em.fork().execute('UPDATE shows SET voting_opens_at = ? WHERE id = ?', [new Date(Date.now() - 1000), show.showId]);
+    await chair.patch(base).send({ votingClosesAt: new Date(Date.now() + 4000).toISOString() }).expect(200);
     const ballot = (await member.get(`${base}/ballot`).expect(200)).body;
     expect(ballot.show.votingState).toBe('open');
     expect(ballot.categories[0].entries[0].entryNumber).toBe(1);
@@ -287,6 +292,35 @@ describe('quilt show: the viewer\'s choice ballot', () => {
     const refused = await late.post(`${base}/ballot`).send({ choices: { categories: { [show.medium]: [a] } } }).expect(409);
     expect(refused.body.message).toContain('has closed');
     expect((await chair.get(`${base}/results`).expect(200)).body.categories[0].standings[0]).toMatchObject({ title: 'Dawn Chorus', score: 1, ribbon: 1 });
+  });
+
+  it('keeps the ballot as it opened: rules cannot change, a corrected title shows, a used card is said before a bad ballot', async () => {
+    const { chair, member, base, medium, large, m } = await world();
+    const early = await chair.get(`${base}/results`).expect(409);
+    expect(early.body.message).toBe('Voting has not opened yet, so there is nothing to count.');
+    const noBatch = await chair.get(`${base}/voting/codes.pdf`).expect(400);
+    expect(noBatch.body.message).toContain('Choose a batch of cards');
+    await chair.post(`${base}/voting/open`).expect(200);
+    const rule = await chair.patch(`${base}/categories/${medium}`).send({ sizeRule: { kind: 'dimensions', maxWidthIn: '5' } }).expect(409);
+    expect(rule.body.message).toContain("a category's size rule, makers and limits can no longer change");
+    await chair.patch(`${base}/categories/${large}`).send({ minMakers: 3 }).expect(409);
+    const before = (await member.get(`${base}/ballot`).expect(200)).body;
+    expect(before.categories.map((c: { name: string }) => c.name)).toContain('Medium');
+    await chair.patch(`${base}/categories/${medium}`).send({ name: 'Medium bed quilts' }).expect(200);
+    await chair.patch(`${base}/entries/${m[1]}`).send({ title: 'Lantern Glow at Dusk' }).expect(200);
+    const after = (await member.get(`${base}/ballot`).expect(200)).body;
+    const medAfter = after.categories.find((c: { id: number }) => c.id === medium);
+    expect(medAfter.name).toBe('Medium bed quilts');
+    expect(medAfter.entries.map((e: { title: string }) => e.title)).toContain('Lantern Glow at Dusk');
+
+    await chair.post(`${base}/voting/codes`).send({ count: 1 }).expect(201);
+    const [code] = await codesOf(Number(base.split('/').pop()));
+    const visitor = client(t);
+    await visitor.post(`/api/public/ballots/${code}`).send({ choices: { categories: { [medium]: [m[0]] } } }).expect(201);
+    const again = await visitor.post(`/api/public/ballots/${code}`).send({ choices: { categories: { [medium]: [] } } }).expect(409);
+    expect(again.body.message).toBe('This ballot card has already been used to vote. Each card votes once.');
+    const paper = await chair.post(`${base}/voting/paper`).send({ code, choices: {} }).expect(409);
+    expect(paper.body.message).toContain('Set this paper ballot aside as a duplicate');
   });
 
   it('takes 200 ballots fired at once, including the same member and the same code ten times each: each voter counted once, every duplicate a 409', async () => {

@@ -3,7 +3,7 @@ import { AuthGuard } from '@nestjs/passport';
 import { plainToInstance } from 'class-transformer';
 import { validate } from 'class-validator';
 import type { Request } from 'express';
-import { fieldErrors } from '../common/pipes/validation';
+import { assertFormBody, fieldErrors } from '../common/pipes/validation';
 import { SignInDto } from './dto/sign-in.dto';
 
 /**
@@ -15,6 +15,7 @@ import { SignInDto } from './dto/sign-in.dto';
 export class LocalAuthGuard extends AuthGuard('local') {
   async canActivate(context: ExecutionContext): Promise<boolean> {
     const req = context.switchToHttp().getRequest<Request>();
+    assertFormBody(req.body);
     const dto = plainToInstance(SignInDto, req.body ?? {});
     const errors = await validate(dto, { whitelist: true, forbidNonWhitelisted: true });
     if (errors.length)

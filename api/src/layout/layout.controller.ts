@@ -1,11 +1,11 @@
 import { BadRequestException, Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
-import { parseInches } from '../common/units/inches';
+import { InchParseError, parseInches } from '../common/units/inches';
 import { LayoutPlanDto } from './dto/layout-plan.dto';
 import { arrangements, LayoutError, planLayout } from './layout-planner';
 import { layoutSvg } from './layout-svg';
 
-const inches = (v: string | undefined) => (v === undefined || v === '' ? undefined : parseInches(v));
+const inches = (v: string | null | undefined) => (v == null || v === '' ? undefined : parseInches(v));
 
 /** The layout planner: pure arithmetic, offered to anyone signed in. */
 @ApiTags('layout')
@@ -37,7 +37,7 @@ export class LayoutController {
       });
       return { arrangements: options, plan, leftover: dto.blockCount - plan.blockCount, svg: layoutSvg(plan) };
     } catch (e) {
-      if (e instanceof LayoutError) throw new BadRequestException(e.message);
+      if (e instanceof LayoutError || e instanceof InchParseError) throw new BadRequestException(e.message);
       throw e;
     }
   }

@@ -130,7 +130,7 @@ export class OfficesService {
       if (term.role === 'admin') this.refuseAdminGap(loaded, today, (t) => (t.id === term.id ? next : t));
       term.startsOn = next.startsOn;
       term.endsOn = next.endsOn;
-      if (dto.note !== undefined) term.note = dto.note.trim();
+      if (dto.note !== undefined) term.note = dto.note?.trim() ?? '';
       await tx.flush();
       const after = await syncGuildTerms(tx, viewer.guild.id, today);
       return termView(term, nameMap(after.memberships));

@@ -21,6 +21,7 @@ import { ShowCategory } from './show-category.entity';
 import { type EntryStatus, ShowEntry } from './show-entry.entity';
 import { entryWindow, presentEntry, sizeRuleOf } from './show-presenter';
 import { Show } from './show.entity';
+import { BallotDefinitions } from './ballot-definitions';
 import { isShowChair, ShowsService } from './shows.service';
 import { checkSize } from './size-rules';
 import { votingState } from './voting';
@@ -37,6 +38,7 @@ export class ShowEntriesService {
     private readonly shows: ShowsService,
     private readonly files: FileStore,
     private readonly processor: PhotoProcessor,
+    private readonly ballots: BallotDefinitions,
   ) {}
 
   private present(e: ShowEntry, show: Show) {
@@ -53,8 +55,9 @@ export class ShowEntriesService {
     const show = await this.shows.findShow(me, showId);
     const where: Record<string, unknown> = { show: show.id };
     if (status) {
-      const wanted = status.split(',').filter((s) => ['submitted', 'accepted', 'declined', 'withdrawn'].includes(s));
-      if (!wanted.length) throw new BadRequestException('Filter by submitted, accepted, declined or withdrawn.');
+      const wanted = status.split(',');
+      if (!wanted.every((s) => ['submitted', 'accepted', 'declined', 'withdrawn'].includes(s)))
+        throw new BadRequestException('Filter by submitted, accepted, declined or withdrawn.');
       where.status = { $in: wanted };
     }
     const entries = await this.em.find(ShowEntry, where, { populate: POPULATE });
@@ -148,7 +151,7 @@ export class ShowEntriesService {
   async update(me: Membership, showId: number, entryId: number, dto: UpdateEntryDto) {
     const chair = isShowChair(me);
     if (dto.onBehalfOf !== undefined) throw invalid({ onBehalfOf: ['An entry cannot change hands; withdraw it and enter it again for the other member.'] });
-    return withTransaction(this.em, async (tx) => {
+    const saved = await withTransaction(this.em, async (tx) => {
       const show = await this.lockShow(tx, me, showId);
       const entry = await this.entryOf(tx, show, entryId, true);
       const own = entry.membership.id === me.id;
@@ -197,6 +200,9 @@ export class ShowEntriesService {
       }
       return this.present(entry, show);
     });
+    // A corrected title or maker shows on the next ballot opened.
+    this.ballots.forget(showId);
+    return saved;
   }
 
   async withdraw(me: Membership, showId: number, entryId: number) {
@@ -295,6 +301,8 @@ export class ShowEntriesService {
   async photo(me: Membership, showId: number, entryId: number, size: string | undefined) {
     const show = await this.shows.findShow(me, showId);
     const entry = await this.entryOf(this.em, show, entryId);
+    // Other members see a quilt's photo once it is accepted for the show, as the ballot shows it.
+    if (!isShowChair(me) && entry.membership.id !== me.id && entry.status !== 'accepted') throw new NotFoundException('No such photo.');
     return this.photoBytes(entry, size);
   }
 

@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query, Res, UploadedFile, UseInterceptors } from '@nestjs/common';
+import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query, Res, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiConsumes, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
@@ -168,7 +168,9 @@ export class ShowsController {
   @Get(':showId/hang-tags.pdf')
   @Roles('show_chair')
   async hangTags(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('hideMakers') hide: string | undefined, @Res() res: Response) {
-    sendFile(res, await this.prints.hangTags(me, showId, hide === undefined ? null : hide === '1' || hide === 'true'), 'application/pdf');
+    const choice = hide === undefined ? null : hide === '1' || hide === 'true' ? true : hide === '0' || hide === 'false' ? false : undefined;
+    if (choice === undefined) throw new BadRequestException('hideMakers is 1 to leave the makers off the tags or 0 to print them.');
+    sendFile(res, await this.prints.hangTags(me, showId, choice), 'application/pdf');
   }
 
   @Get(':showId/entries.pdf')

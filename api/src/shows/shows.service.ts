@@ -5,6 +5,7 @@ import { withTransaction } from '../database/transaction';
 import { hasAnyRole } from '../guilds/roles';
 import type { Membership } from '../guilds/membership.entity';
 import { CategoryDto, CreateShowDto, SizeRuleDto, UpdateCategoryDto, UpdateShowDto } from './dto/show.dto';
+import { BallotDefinitions } from './ballot-definitions';
 import { ShowCategory } from './show-category.entity';
 import { ShowEntry } from './show-entry.entity';
 import { presentCategory, presentShow, presentSummary } from './show-presenter';
@@ -20,7 +21,10 @@ const mmOf = (inches: string | null | undefined): number | null =>
 /** Shows and their categories: set up by the show chair, read by every member of the guild. */
 @Injectable()
 export class ShowsService {
-  constructor(private readonly em: EntityManager) {}
+  constructor(
+    private readonly em: EntityManager,
+    private readonly ballots: BallotDefinitions,
+  ) {}
 
   /** The show, if it belongs to the caller's guild (404 otherwise, so other guilds' shows stay unknown). */
   async findShow(me: Membership, showId: number, em: EntityManager = this.em): Promise<Show> {
@@ -74,7 +78,7 @@ export class ShowsService {
   }
 
   async update(me: Membership, showId: number, dto: UpdateShowDto) {
-    return withTransaction(this.em, async (tx) => {
+    const saved = await withTransaction(this.em, async (tx) => {
       await tx.execute('SELECT id FROM shows WHERE id = ? AND guild_id = ? FOR UPDATE', [showId, me.guild.id]);
       const show = await this.findShow(me, showId, tx);
       const state = votingState(show);
@@ -97,6 +101,9 @@ export class ShowsService {
       });
       const opens = dto.votingOpensAt !== undefined ? (dto.votingOpensAt ? new Date(dto.votingOpensAt) : null) : show.votingOpensAt ?? null;
       const closes = dto.votingClosesAt !== undefined ? (dto.votingClosesAt ? new Date(dto.votingClosesAt) : null) : show.votingClosesAt ?? null;
+      // A time already past would open voting at once, without the checks that opening by hand makes.
+      if (dto.votingOpensAt && opens! <= new Date())
+        throw invalid({ votingOpensAt: ['Choose an opening time in the future, or open voting now from the ballot desk.'] });
       if (opens && closes && closes <= opens) throw invalid({ votingClosesAt: ['Voting must close after it opens.'] });
       if (dto.votingClosesAt && closes! <= new Date()) throw invalid({ votingClosesAt: ['Choose a closing time in the future, or close voting now from the voting desk.'] });
       if (dto.name !== undefined) show.name = dto.name.trim();
@@ -110,6 +117,9 @@ export class ShowsService {
       await tx.flush();
       return this.present(me, show, tx);
     });
+    // The ballot names the show; a corrected name shows on the next ballot opened.
+    this.ballots.forget(showId);
+    return saved;
   }
 
   private apply(show: Show, dto: Partial<CreateShowDto>) {
@@ -127,6 +137,8 @@ export class ShowsService {
       throw invalid({ narrowDepthIn: ['Give both the width under which a narrower sleeve is allowed and that sleeve\'s depth, or neither.'] });
     if (show.narrowDepthMm != null && show.narrowDepthMm > show.sleeveDepthMm)
       throw invalid({ narrowDepthIn: ['The narrow quilts\' sleeve should not be deeper than the usual one.'] });
+    if (show.entryFeeCapCents != null && show.entryFeeCapCents < show.entryFeeCents)
+      throw invalid({ entryFeeCapCents: ['The most one member pays cannot be less than the fee for one quilt.'] });
     if (dto.votingKind !== undefined) show.votingKind = dto.votingKind;
     if (dto.rankedMethod !== undefined) show.rankedMethod = dto.rankedMethod;
     if (dto.rankDepth !== undefined) show.rankDepth = dto.rankDepth;
@@ -139,6 +151,7 @@ export class ShowsService {
     if (!errors.endsOn && d.endsOn < d.startsOn) errors.endsOn = ['The show cannot end before it starts.'];
     if (d.entriesOpenOn && d.entriesCloseOn && d.entriesCloseOn < d.entriesOpenOn) errors.entriesCloseOn = ['Entries cannot close before they open.'];
     if (d.entriesCloseOn && d.entriesCloseOn > d.endsOn) errors.entriesCloseOn = ['Entries must close by the last day of the show.'];
+    if (d.entriesOpenOn && d.entriesOpenOn > d.endsOn) errors.entriesOpenOn = ["Entries must open on or before the show's last day."];
     if (Object.keys(errors).length) throw invalid(errors);
   }
 
@@ -160,10 +173,15 @@ export class ShowsService {
   }
 
   async updateCategory(me: Membership, showId: number, categoryId: number, dto: UpdateCategoryDto) {
-    return withTransaction(this.em, async (tx) => {
+    const saved = await withTransaction(this.em, async (tx) => {
+      await tx.execute('SELECT id FROM shows WHERE id = ? AND guild_id = ? FOR UPDATE', [showId, me.guild.id]);
       const show = await this.findShow(me, showId, tx);
       const category = await tx.findOne(ShowCategory, { id: categoryId, show: show.id });
       if (!category) throw new NotFoundException('No such category in this show.');
+      const state = votingState(show);
+      // The quilts on the ballot were accepted under these rules; a name or description may still be corrected.
+      if ((state === 'open' || state === 'closed') && (dto.sizeRule !== undefined || dto.minMakers !== undefined || dto.maxEntriesPerMember !== undefined))
+        throw new ConflictException("Voting has opened: a category's size rule, makers and limits can no longer change. Its name and description still can.");
       if (dto.name !== undefined) {
         await this.assertNameFree(tx, show.id, dto.name.trim(), category.id);
         category.name = dto.name.trim();
@@ -173,6 +191,8 @@ export class ShowsService {
       const accepted = await tx.count(ShowEntry, { category: category.id, status: 'accepted' });
       return presentCategory(category, accepted);
     });
+    this.ballots.forget(showId);
+    return saved;
   }
 
   async deleteCategory(me: Membership, showId: number, categoryId: number) {
@@ -185,7 +205,9 @@ export class ShowsService {
         throw new ConflictException('Voting has opened: categories can no longer be removed.');
       const entries = await tx.count(ShowEntry, { category: category.id });
       if (entries > 0)
-        throw new ConflictException(`${category.name} has ${entries} ${entries === 1 ? 'entry' : 'entries'}. Move them to another category first.`);
+        throw new ConflictException(
+          `${category.name} has ${entries === 1 ? '1 entry. Move it' : `${entries} entries. Move them`} to another category first, then delete it.`,
+        );
       tx.remove(category);
     });
   }

@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
+import { BadRequestException, Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { CurrentMembership } from '../common/decorators/current-user.decorator';
@@ -30,7 +30,7 @@ export class VotingController {
 
   @Get('voting/codes.pdf')
   @Roles('show_chair')
-  async codesPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('batch', id()) batch: number, @Res() res: Response) {
+  async codesPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('batch', new ParseIntPipe({ exceptionFactory: () => new BadRequestException('Choose a batch of cards: add ?batch=1 for the first.') })) batch: number, @Res() res: Response) {
     sendFile(res, await this.prints.ballotCards(me, showId, batch), 'application/pdf');
   }
 

@@ -11,6 +11,7 @@ import { formatBallotCode, generateBallotCode, normaliseBallotCode } from './bal
 import { BallotCode, type BallotChoices, TieDecisionRecord, type VoterChannel } from './ballot.entity';
 import { TieDecisionDto } from './dto/show.dto';
 import { ShowEntriesService } from './show-entries.service';
+import { BallotDefinitions } from './ballot-definitions';
 import { Show } from './show.entity';
 import { isShowChair, ShowsService } from './shows.service';
 import { type BallotCategory, checkBallot, countShow, votingState } from './voting';
@@ -27,7 +28,7 @@ interface BallotEntry {
 }
 
 /** What a show's ballot offers, and what casting needs to know about the show. */
-interface BallotDefinition {
+export interface BallotDefinition {
   show: { id: number; name: string; votingKind: Show['votingKind']; rankDepth: number };
   categories: (BallotCategory & { description: string })[];
   entries: Map<number, BallotEntry>;
@@ -39,19 +40,20 @@ const SCORE_LABEL = { per_category: 'Votes', approval: 'Approvals', points: 'Poi
  * The viewer's choice ballot: opening and closing, visitor codes, casting (one ballot per member or
  * code, enforced by a unique key in the same transaction as the ballot), turnout, and the count.
  */
+const CARD_USED = 'This ballot card has already been used to vote. Each card votes once.';
+
+/** Why there is nothing to count yet, in the words of the voting's state. */
+function notCountedYet(state: string, what: string): string {
+  return state === 'open' ? `Voting is still open: ${what} until it closes.` : 'Voting has not opened yet, so there is nothing to count.';
+}
+
 @Injectable()
 export class VotingService {
-  /**
-   * Once voting opens a show's categories and accepted entries cannot change (every path that would
-   * change them refuses), so the ballot's definition is cached per show and opening instant. Nothing
-   * mutable lives here: another api instance builds the same definition from the database.
-   */
-  private readonly definitions = new Map<number, Promise<BallotDefinition>>();
-
   constructor(
     private readonly em: EntityManager,
     private readonly shows: ShowsService,
     private readonly entries: ShowEntriesService,
+    private readonly definitions: BallotDefinitions<BallotDefinition>,
   ) {}
 
   // ---- the ballot's content ------------------------------------------------------------------------
@@ -102,14 +104,7 @@ export class VotingService {
 
   /** The cached definition of a show whose voting is open (its kind, categories and entries are frozen). */
   private openDefinition(showId: number, build: () => Promise<BallotDefinition>): Promise<BallotDefinition> {
-    let cached = this.definitions.get(showId);
-    if (!cached) {
-      cached = build();
-      this.definitions.set(showId, cached);
-      cached.catch(() => this.definitions.delete(showId));
-      if (this.definitions.size > 200) this.definitions.delete(this.definitions.keys().next().value!);
-    }
-    return cached;
+    return this.definitions.get(showId, build);
   }
 
   private async presentBallot(show: Show, extra: Record<string, unknown>, publicPhotos: boolean) {
@@ -187,16 +182,20 @@ export class VotingService {
   async castCode(typed: string, choices: unknown) {
     // The busiest path at a show: one indexed read, then the cached ballot definition while voting is open.
     const code = normaliseBallotCode(typed);
-    const rows: { id: number; show_id: number }[] = code ? await this.em.execute('SELECT id, show_id FROM ballot_codes WHERE code = ?', [code]) : [];
+    const rows: { id: number; show_id: number; used_at: Date | null }[] = code
+      ? await this.em.execute('SELECT id, show_id, used_at FROM ballot_codes WHERE code = ?', [code])
+      : [];
     if (!rows.length) throw new NotFoundException('We do not know that code. Check it against your ballot card; the letters O and I are never used.');
+    // Said before anything about her choices, so nobody corrects a ballot that cannot count (the unique key still decides a race).
+    if (rows[0].used_at) throw new ConflictException(CARD_USED);
     const showId = Number(rows[0].show_id);
-    let def = await this.definitions.get(showId);
+    let def = await this.definitions.peek(showId);
     if (!def) {
       const show = await this.em.findOneOrFail(Show, { id: showId }, { populate: ['guild'] });
       this.assertOpen(show);
       def = await this.definition(show);
     }
-    return this.cast(def, `code:${rows[0].id}`, 'code', Number(rows[0].id), choices, 'This ballot card has already been used to vote. Each card votes once.');
+    return this.cast(def, `code:${rows[0].id}`, 'code', Number(rows[0].id), choices, CARD_USED);
   }
 
   async castPaper(me: Membership, showId: number, typed: string, choices: unknown) {
@@ -206,7 +205,9 @@ export class VotingService {
     const row = await this.em.findOne(BallotCode, { code, show: show.id });
     if (!row) throw new NotFoundException({ message: 'No ballot card of this show has that code. Check it against the paper ballot.', errors: { code: ['No card of this show has that code.'] } });
     this.assertOpen(show);
-    const result = await this.cast(await this.definition(show), `code:${row.id}`, 'paper', row.id, choices, `Code ${formatBallotCode(code)} has already voted${row.usedAt ? '' : ''}. Set this paper ballot aside as a duplicate.`);
+    const duplicate = `Code ${formatBallotCode(code)} has already voted. Set this paper ballot aside as a duplicate.`;
+    if (row.usedAt) throw new ConflictException(duplicate);
+    const result = await this.cast(await this.definition(show), `code:${row.id}`, 'paper', row.id, choices, duplicate);
     return { ...result, code: formatBallotCode(code) };
   }
 
@@ -360,7 +361,7 @@ export class VotingService {
         if (options.publicView) throw new NotFoundException('The results of this show have not been announced yet.');
         throw new ForbiddenException('The results have not been announced yet.');
       }
-      if (state !== 'closed') throw new ConflictException('Voting is still open: the standings stay hidden until it closes.');
+      if (state !== 'closed') throw new ConflictException(notCountedYet(state, 'the standings stay hidden'));
     }
     return this.count(show);
   }
@@ -472,7 +473,8 @@ export class VotingService {
   /** Every ballot, anonymous, for a recount by hand: one row per ballot and category, in no particular order. */
   async ballotsCsv(me: Membership, showId: number): Promise<string> {
     const show = await this.shows.findShow(me, showId);
-    if (votingState(show) !== 'closed') throw new ConflictException('Voting is still open: the ballots stay sealed until it closes.');
+    const state = votingState(show);
+    if (state !== 'closed') throw new ConflictException(notCountedYet(state, 'the ballots stay sealed'));
     const def = await this.definition(show);
     const number = (id: number) => def.entries.get(id)?.entryNumber ?? `id ${id}`;
     const ballotRows: { choices: BallotChoices | string }[] = await this.em.execute('SELECT choices FROM show_ballots WHERE show_id = ? ORDER BY id', [show.id]);

@@ -32,7 +32,7 @@ describe('checkBallot', () => {
   it.each([
     [{ categories: { 1: [11, 12] } }, 'Vote for one quilt in Bed quilts; you chose 2.'],
     [{ categories: { 1: [21] } }, 'No. 4, "D" is in Wall quilts, not Bed quilts.'],
-    [{ categories: { 3: [11] } }, 'Your ballot names a category that is not in this show.'],
+    [{ categories: { 3: [11] } }, 'Your ballot names a category that has no quilts on this ballot.'],
     [{ categories: { 1: [99] } }, "Your ballot for Bed quilts names a quilt that is not on this show's ballot."],
     [{ categories: { 1: [-1] } }, 'Your ballot for Bed quilts lists something that is not a quilt.'],
     [{ categories: {} }, 'Choose at least one quilt before you cast your ballot.'],

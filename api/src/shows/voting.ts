@@ -75,7 +75,7 @@ export function checkBallot(kind: VotingKind, rankDepth: number, categories: rea
   let votes = 0;
   for (const [key, value] of Object.entries(marked as Record<string, unknown>)) {
     const category = byId.get(key);
-    if (!category) return fail('Your ballot names a category that is not in this show.');
+    if (!category) return fail('Your ballot names a category that has no quilts on this ballot.');
     const ids = Array.isArray(value) ? value : value === null ? [] : [value];
     if (!ids.every(isId)) return fail(`Your ballot for ${category.name} lists something that is not a quilt.`);
     if (new Set(ids).size !== ids.length) return fail(`Your ballot for ${category.name} names the same quilt twice.`);

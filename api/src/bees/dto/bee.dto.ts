@@ -14,19 +14,22 @@ import {
   MaxLength,
   Min,
 } from 'class-validator';
+import { CleanText, OmitOrGive } from '../../common/validators/text';
 
 const MONTH = /^\d{4}-(0[1-9]|1[0-2])$/;
 const monthMessage = 'Choose a month, like 2027-03.';
 
 export class CreateBeeDto {
   @ApiProperty()
+  @CleanText()
   @IsString({ message: 'Give the bee a name.' })
   @IsNotEmpty({ message: 'Give the bee a name.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
   name!: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the description as text.' })
   @MaxLength(2000, { message: 'Use at most 2000 characters.' })
   description?: string;
@@ -47,18 +50,20 @@ export class CreateBeeDto {
 }
 
 export class UpdateBeeDto {
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Give the bee a name.' })
   @IsNotEmpty({ message: 'Give the bee a name.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
   name?: string;
 
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the description as text.' })
   @MaxLength(2000, { message: 'Use at most 2000 characters.' })
   description?: string;
 
-  @IsOptional()
+  @OmitOrGive()
   @IsIn(['mail', 'meeting'], { message: 'Choose whether blocks go by mail or at meetings.' })
   handover?: 'mail' | 'meeting';
 }

@@ -1,6 +1,6 @@
 import { DriverException, NotFoundError, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { ArgumentsHost, Catch, ExceptionFilter, HttpException, HttpStatus, Logger } from '@nestjs/common';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 
 interface ErrorBody {
   statusCode: number;
@@ -15,7 +15,8 @@ export class HttpErrorFilter implements ExceptionFilter {
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
-    const body = this.toBody(exception);
+    const req = host.switchToHttp().getRequest<Request>();
+    const body = plainWords(this.toBody(exception), req?.path ?? '');
     if (body.statusCode >= 500) this.logger.error(exception instanceof Error ? exception.stack : String(exception));
     if (res.headersSent) return;
     res.status(body.statusCode).json(body);
@@ -49,4 +50,24 @@ export class HttpErrorFilter implements ExceptionFilter {
       return { statusCode: HttpStatus.BAD_REQUEST, message: 'A value is too long or malformed.' };
     return { statusCode: HttpStatus.INTERNAL_SERVER_ERROR, message: 'Something went wrong on our side. Please try again.' };
   }
+}
+
+/**
+ * Framework and upload-library wording a member could not act on, put in plain words. Every upload
+ * form takes files up to 20 MB except the roster import (5 MB).
+ */
+export function plainWords(body: ErrorBody, path: string): ErrorBody {
+  const m = body.message;
+  if (/^Validation failed \(.*(numeric|integer)/i.test(m))
+    return { ...body, message: body.statusCode === 404 ? 'There is nothing at that address. Check the link.' : 'A number in the address is not a whole number.' };
+  if (m === 'File too large') {
+    const limit = path.includes('/roster-import') ? '5 MB' : '20 MB';
+    return { ...body, statusCode: 413, message: `That file is larger than ${limit}. Choose a smaller one (a phone photo is usually 2 to 8 MB).` };
+  }
+  if (/^Unexpected file field|^Unexpected field/.test(m)) return { ...body, message: 'Send the file in the form’s own file field.' };
+  if (m === 'Too many files') return { ...body, message: 'Send one file at a time.' };
+  if (/^Too many (fields|parts)$|^Field (name|value) too long$/.test(m)) return { ...body, message: 'The upload carried more than the form asks for. Send only the file.' };
+  if (/^Multipart: |^Malformed part header|^Unexpected end of (form|multipart data)/.test(m))
+    return { ...body, statusCode: 400, message: 'The upload was cut off or malformed. Please try again.' };
+  return body;
 }

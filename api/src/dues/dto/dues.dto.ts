@@ -16,6 +16,7 @@ import {
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
+import { CleanText } from '../../common/validators/text';
 import { IsId } from '../../common/validators/is-id';
 import { INVOICE_STATUSES, PAYMENT_METHODS, type InvoiceStatus, type PaymentMethod } from '../dues-invoice.entity';
 import { PLAN_KINDS } from '../dues-plan.entity';
@@ -103,6 +104,7 @@ export class CreatePlanDto {
   @IsString({ message: 'Give the plan a name.' })
   @IsNotEmpty({ message: 'Give the plan a name.' })
   @MaxLength(80, { message: 'Use at most 80 characters.' })
+  @CleanText()
   name!: string;
 
   @ApiProperty({ enum: PLAN_KINDS })
@@ -189,6 +191,7 @@ export class CreateHouseholdDto {
   @IsString({ message: 'Name the household.' })
   @IsNotEmpty({ message: 'Name the household.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
+  @CleanText()
   name!: string;
 }
 

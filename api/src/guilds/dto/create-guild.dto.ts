@@ -1,5 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsIn, IsInt, IsNotEmpty, IsString, Max, MaxLength, Min, MinLength, ValidateBy } from 'class-validator';
+import { CleanText } from '../../common/validators/text';
 import { IANAZone } from 'luxon';
 
 /** ISO 4217 codes the runtime knows (Intl), so amounts can be formatted in them. */
@@ -10,12 +11,14 @@ export class CreateGuildDto {
   @IsString({ message: "Write the guild's name." })
   @MinLength(2, { message: "Write the guild's name (at least 2 letters)." })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
+  @CleanText()
   name!: string;
 
   @ApiProperty({ example: 'Fernhollow' })
   @IsString({ message: 'Write the town the guild meets in.' })
   @IsNotEmpty({ message: 'Write the town the guild meets in.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
+  @CleanText()
   town!: string;
 
   @ApiProperty({ example: 'America/Chicago', description: 'IANA time zone' })

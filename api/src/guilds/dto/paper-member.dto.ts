@@ -61,20 +61,22 @@ export class CreatePaperMemberDto {
   memberSince?: string | null;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @ValidateIf((_, v) => v !== undefined)
   @IsBoolean({ message: 'Say whether members may see her phone number.' })
   showPhone?: boolean;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @ValidateIf((_, v) => v !== undefined)
   @IsBoolean({ message: 'Say whether members may see her town.' })
   showTown?: boolean;
 }
 
 /** Changes to the details of a member who does not sign in; fields left out stay as they are. */
-export class UpdateMemberDetailsDto extends PartialType(PickType(CreatePaperMemberDto, ['name', 'email', 'phone', 'town', 'showPhone', 'showTown'] as const)) {
+export class UpdateMemberDetailsDto extends PartialType(PickType(CreatePaperMemberDto, ['name', 'email', 'phone', 'town', 'showPhone', 'showTown'] as const), {
+  skipNullProperties: false,
+}) {
   @ApiProperty({ required: false })
-  @IsOptional()
+  @ValidateIf((_, v) => v !== undefined)
   @IsBoolean({ message: 'Say whether members may see her e-mail address.' })
   showEmail?: boolean;
 }

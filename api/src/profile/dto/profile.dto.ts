@@ -1,5 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsBoolean, IsEmail, IsNotEmpty, IsOptional, IsString, Matches, MaxLength, ValidateIf } from 'class-validator';
+import { CleanText } from '../../common/validators/text';
 import { NewPassword } from '../../auth/dto/password-fields';
 
 export class UpdateProfileDto {
@@ -7,6 +8,7 @@ export class UpdateProfileDto {
   @IsString({ message: 'Enter your name.' })
   @IsNotEmpty({ message: 'Enter your name.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
+  @CleanText()
   name!: string;
 }
 

@@ -1,6 +1,7 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
 import {
+  IsObject,
   ArrayMaxSize,
   IsArray,
   IsIn,
@@ -13,6 +14,7 @@ import {
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
+import { CleanText } from '../../common/validators/text';
 import { IsInches } from '../../common/units/inches';
 import { BLOCK_STATUSES, type BlockStatus } from '../round-block.entity';
 
@@ -23,6 +25,7 @@ export class SwatchDto {
   @IsString({ message: 'Name the colour.' })
   @IsNotEmpty({ message: 'Name the colour.' })
   @MaxLength(40, { message: 'Use at most 40 characters for a colour name.' })
+  @CleanText()
   name!: string;
 
   @ApiProperty({ example: '#E8A33D' })
@@ -35,6 +38,7 @@ export class RoundInputDto {
   @IsString({ message: 'Give the block a title.' })
   @IsNotEmpty({ message: 'Give the block a title.' })
   @MaxLength(160, { message: 'Use at most 160 characters.' })
+  @CleanText()
   title!: string;
 
   @ApiProperty({ description: 'Markdown: **bold**, *italic*, lists, links. HTML shows as text.' })
@@ -80,6 +84,7 @@ export class RoundInputDto {
 
   @ApiProperty({ required: false, type: SwatchDto, nullable: true })
   @IsOptional()
+  @IsObject({ message: 'Describe the background colour, or leave it out.' })
   @ValidateNested()
   @Type(() => SwatchDto)
   background?: SwatchDto | null;

@@ -21,6 +21,7 @@ import {
 } from 'class-validator';
 import { IsInches } from '../../common/units/inches';
 import { IsId } from '../../common/validators/is-id';
+import { CleanText, OmitOrGive } from '../../common/validators/text';
 import { SIZE_RULE_KINDS, type SizeRuleKind } from '../show-category.entity';
 import { RANKED_METHODS, type RankedMethod, VOTING_KINDS, type VotingKind } from '../show.entity';
 
@@ -44,19 +45,22 @@ const optionalInches = (max: number): PropertyDecorator => (target, key) => {
 
 export class CreateShowDto {
   @ApiProperty({ example: 'Wrenfield Spring Quilt Show' })
+  @CleanText()
   @IsString({ message: 'Give the show a name.' })
   @IsNotEmpty({ message: 'Give the show a name.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
   name!: string;
 
   @ApiProperty({ example: 'Grange Hall, 4 Mill Lane' })
+  @CleanText()
   @IsString({ message: 'Say where the show is.' })
   @IsNotEmpty({ message: 'Say where the show is.' })
   @MaxLength(200, { message: 'Use at most 200 characters.' })
   venue!: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the description as text.' })
   @MaxLength(4000, { message: 'Use at most 4,000 characters.' })
   description?: string;
@@ -86,7 +90,7 @@ export class CreateShowDto {
   maxEntriesPerMember?: number | null;
 
   @ApiProperty({ required: false, description: 'Per quilt, in cents; 0 for no fee' })
-  @IsOptional()
+  @OmitOrGive()
   @IsInt({ message: 'Enter the entry fee as a whole number of cents (500 for 5.00).' })
   @Min(0, { message: 'The entry fee cannot be negative.' })
   @Max(MAX_FEE_CENTS, { message: 'The entry fee must be at most 1,000.00.' })
@@ -97,7 +101,7 @@ export class CreateShowDto {
   entryFeeCapCents?: number | null;
 
   @ApiProperty({ required: false, example: '4' })
-  @IsOptional()
+  @OmitOrGive()
   @IsInches({ min: 1, max: 12 })
   sleeveDepthIn?: string;
 
@@ -114,24 +118,24 @@ export class CreateShowDto {
   splitOverIn?: string | null;
 
   @ApiProperty({ required: false, enum: VOTING_KINDS })
-  @IsOptional()
+  @OmitOrGive()
   @IsIn(VOTING_KINDS, { message: 'Choose one vote per category, approval, or ranked.' })
   votingKind?: VotingKind;
 
   @ApiProperty({ required: false, enum: RANKED_METHODS })
-  @IsOptional()
+  @OmitOrGive()
   @IsIn(RANKED_METHODS, { message: 'Choose 3/2/1 points or instant runoff.' })
   rankedMethod?: RankedMethod;
 
   @ApiProperty({ required: false, minimum: 2, maximum: 5 })
-  @IsOptional()
+  @OmitOrGive()
   @IsInt({ message: 'A ranked ballot lists 2 to 5 places.' })
   @Min(2, { message: 'A ranked ballot lists 2 to 5 places.' })
   @Max(5, { message: 'A ranked ballot lists 2 to 5 places.' })
   rankDepth?: number;
 }
 
-export class UpdateShowDto extends PartialType(CreateShowDto) {
+export class UpdateShowDto extends PartialType(CreateShowDto, { skipNullProperties: false }) {
   @ApiProperty({ required: false, nullable: true, description: 'ISO instant' })
   @IsOptional()
   @ValidateIf((_, v) => v !== null)
@@ -145,7 +149,7 @@ export class UpdateShowDto extends PartialType(CreateShowDto) {
   votingClosesAt?: string | null;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
   @IsBoolean({ message: "Say whether makers' names stay hidden." })
   makersHidden?: boolean;
 }
@@ -163,36 +167,38 @@ export class SizeRuleDto {
   @ApiProperty({ required: false, nullable: true }) @optionalInches(2400) maxIn?: string | null;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
   @IsBoolean({ message: 'Say whether the lower limit itself is allowed.' })
   minInclusive?: boolean;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
   @IsBoolean({ message: 'Say whether the upper limit itself is allowed.' })
   maxInclusive?: boolean;
 }
 
 export class CategoryDto {
   @ApiProperty({ example: 'Bed quilts, pieced' })
+  @CleanText()
   @IsString({ message: 'Name the category.' })
   @IsNotEmpty({ message: 'Name the category.' })
   @MaxLength(80, { message: 'Use at most 80 characters.' })
   name!: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the description as text.' })
   @MaxLength(500, { message: 'Use at most 500 characters.' })
   description?: string;
 
   @ApiProperty({ required: false, description: 'false: exhibit only' })
-  @IsOptional()
+  @OmitOrGive()
   @IsBoolean({ message: 'Say whether the category is judged or exhibit only.' })
   judged?: boolean;
 
   @ApiProperty({ required: false, type: SizeRuleDto })
-  @IsOptional()
+  @OmitOrGive()
   @IsObject({ message: 'Describe the size rule.' })
   @ValidateNested()
   @Type(() => SizeRuleDto)
@@ -207,14 +213,14 @@ export class CategoryDto {
   maxEntriesPerMember?: number | null;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
   @IsInt({ message: 'The order is a whole number.' })
   @Min(0, { message: 'The order is a whole number from 0.' })
   @Max(999, { message: 'The order is a whole number up to 999.' })
   sortOrder?: number;
 }
 
-export class UpdateCategoryDto extends PartialType(CategoryDto) {}
+export class UpdateCategoryDto extends PartialType(CategoryDto, { skipNullProperties: false }) {}
 
 export class EntryDto {
   @ApiProperty()
@@ -222,6 +228,7 @@ export class EntryDto {
   categoryId!: number;
 
   @ApiProperty({ example: 'Evening on the Millpond' })
+  @CleanText()
   @IsString({ message: 'Give the quilt a title.' })
   @IsNotEmpty({ message: 'Give the quilt a title.' })
   @MaxLength(160, { message: 'Use at most 160 characters.' })
@@ -236,6 +243,7 @@ export class EntryDto {
   heightIn!: string;
 
   @ApiProperty({ type: [String] })
+  @CleanText()
   @IsArray({ message: 'List who made the quilt.' })
   @ArrayMinSize(1, { message: 'Name at least one maker.' })
   @ArrayMaxSize(30, { message: 'List at most 30 makers.' })
@@ -245,25 +253,28 @@ export class EntryDto {
   makers!: string[];
 
   @ApiProperty({ required: false, description: 'Who quilted it (the makers, or a longarm quilter)' })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write who quilted it as text.' })
   @MaxLength(120, { message: 'Use at most 120 characters.' })
   quilter?: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the techniques as text.' })
   @MaxLength(300, { message: 'Use at most 300 characters.' })
   techniques?: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the story as text.' })
   @MaxLength(1000, { message: 'Keep the story to 1,000 characters.' })
   story?: string;
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
   @IsBoolean({ message: 'Say whether the quilt is for sale.' })
   forSale?: boolean;
 
@@ -272,12 +283,12 @@ export class EntryDto {
   priceCents?: number | null;
 
   @ApiProperty({ required: false, description: "Show chair only: the member this quilt is entered for" })
-  @IsOptional()
+  @OmitOrGive()
   @IsId('Choose the member you are entering this quilt for.')
   onBehalfOf?: number;
 }
 
-export class UpdateEntryDto extends PartialType(EntryDto) {
+export class UpdateEntryDto extends PartialType(EntryDto, { skipNullProperties: false }) {
   @ApiProperty({ required: false, nullable: true, description: 'Show chair only' })
   @optionalNumber(1, 9999, 'Entry numbers are whole numbers from 1 to 9999.')
   entryNumber?: number | null;
@@ -289,7 +300,8 @@ export class ReviewEntryDto {
   decision!: 'accept' | 'decline';
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the reason as text.' })
   @MaxLength(500, { message: 'Use at most 500 characters.' })
   reason?: string;
@@ -297,7 +309,7 @@ export class ReviewEntryDto {
 
 export class NumberEntriesDto {
   @ApiProperty({ required: false, default: 1 })
-  @IsOptional()
+  @OmitOrGive()
   @IsInt({ message: 'Start numbering at a whole number from 1.' })
   @Min(1, { message: 'Start numbering at a whole number from 1.' })
   @Max(9000, { message: 'Start numbering at 9000 or below.' })
@@ -340,7 +352,8 @@ export class TieDecisionDto {
   order!: number[];
 
   @ApiProperty({ required: false })
-  @IsOptional()
+  @OmitOrGive()
+  @CleanText()
   @IsString({ message: 'Write the note as text.' })
   @MaxLength(300, { message: 'Use at most 300 characters.' })
   note?: string;
