@@ -84,11 +84,24 @@ describe('Entries review', () => {
     await user.click(within(row).getByRole('button', { name: /^Category or number…/ }));
     const dialog = await screen.findByRole('dialog', { name: '“Orchard Rows”' });
     await user.selectOptions(within(dialog).getByLabelText('Category'), '11');
-    expect(within(dialog).getByTestId('move-warning')).toHaveTextContent('It does not fit Small.');
+    expect(within(dialog).getByTestId('move-warning')).toHaveTextContent(
+      "It does not fit Small: This category takes quilts less than 160 in around (perimeter); yours is 242 in around, 82 in over. Choose another category, or change the quilt's size first.",
+    );
+    expect(dialog).not.toHaveTextContent('You can still move it');
     await user.type(within(dialog).getByLabelText(/Entry number/), '17');
     await user.click(within(dialog).getByRole('button', { name: 'Save' }));
+    // It does not fit Small, so the move is refused before sending and the dialog stays open.
+    expect(await within(dialog).findByText('Choose a category this quilt fits, or keep it in Medium.')).toBeInTheDocument();
+    expect(screen.getByRole('dialog', { name: '“Orchard Rows”' })).toBeInTheDocument();
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'PATCH')).toBe(false);
+
+    // Kept in Medium, the number alone is saved.
+    await user.selectOptions(within(dialog).getByLabelText('Category'), '12');
+    expect(within(dialog).queryByTestId('move-warning')).not.toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Save' }));
     await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
-    expect(requestBody(fetchMock, PATCH)).toEqual({ categoryId: 11, entryNumber: 17 });
+    expect(requestBody(fetchMock, PATCH)).toEqual({ entryNumber: 17 });
+    expect(fetchMock.mock.calls.filter(([, init]) => init?.method === 'PATCH')).toHaveLength(1);
   });
 
   it('numbers every accepted entry in one go', async () => {

@@ -45,9 +45,21 @@ describe('Entering a quilt', () => {
     await user.type(screen.getByLabelText('Height (inches)'), '60½');
     expect(screen.getByTestId('perimeter')).toHaveTextContent('Perimeter 242 in');
     expect(screen.getByLabelText('Height (inches)')).toHaveAccessibleDescription(/Perimeter 242 in/);
+    const tooBig = 'This category takes quilts at most 240 in around (perimeter); yours is 242 in around, 2 in over.';
+    // The refusal is said once, under the width field (the field the server names), and the box says what to do.
     expect(screen.getByTestId('size-warning')).toHaveTextContent(
-      'This may not fit Medium.This category takes quilts at most 240 in around. Yours is 242 in around, 2 in over.',
+      /^It does not fit Medium\.Choose another category, or check the width and height\.$/,
     );
+    expect(screen.getByTestId('size-warning')).not.toHaveTextContent('You can still send it');
+    expect(screen.getByLabelText('Width (inches)')).toHaveAccessibleDescription(new RegExp(tooBig.replace(/[()]/g, '\\$&')));
+    expect(screen.getAllByText(tooBig)).toHaveLength(1);
+
+    // Too big for Medium: refused before sending, so nothing goes to the server.
+    await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
+    await waitFor(() => expect(screen.getByLabelText('Width (inches)')).toHaveAttribute('aria-invalid', 'true'));
+    expect(screen.getByText(tooBig)).toBeInTheDocument();
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
+    expect(router.state.location.pathname).toBe('/guilds/1/shows/2/enter');
 
     await user.clear(screen.getByLabelText('Height (inches)'));
     await user.type(screen.getByLabelText('Height (inches)'), '59.5');
@@ -57,7 +69,7 @@ describe('Entering a quilt', () => {
     await user.click(screen.getByRole('button', { name: 'Add another maker' }));
     expect(screen.getByLabelText('Maker 2')).toHaveFocus();
     await user.type(screen.getByLabelText('Maker 2'), 'Tamsin Oakes');
-    await user.type(screen.getByLabelText('Quilted by'), 'Tamsin Oakes');
+    await user.type(screen.getByLabelText('Quilted by (optional)'), 'Tamsin Oakes');
     await user.type(screen.getByLabelText(/The story of your quilt/), 'Pieced from shirts.');
     expect(screen.getByTestId('story-count')).toHaveTextContent('19 of 1000 characters.');
     await user.click(screen.getByLabelText('This quilt is for sale'));
@@ -90,23 +102,33 @@ describe('Entering a quilt', () => {
     await user.type(screen.getByLabelText('Title of the quilt'), 'Kitchen Garden');
     await user.type(screen.getByLabelText('Width (inches)'), 'sixty');
     await user.type(screen.getByLabelText('Height (inches)'), '60');
-    await user.type(screen.getByLabelText('Quilted by'), 'Marigold Fenwick');
+    await user.type(screen.getByLabelText('Quilted by (optional)'), 'Marigold Fenwick');
     await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
-    expect(await screen.findByText('Type the width in inches, like 60, 60 1/2 or 60.5.')).toBeInTheDocument();
+    expect(await screen.findByText('Could not read "sixty" as inches. Write it like 12 1/2, 12.5 or 12½.')).toBeInTheDocument();
+    expect(screen.getByLabelText('Width (inches)')).toHaveAccessibleDescription(/Could not read "sixty" as inches\./);
     expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
 
     await user.clear(screen.getByLabelText('Width (inches)'));
     await user.type(screen.getByLabelText('Width (inches)'), '61');
     await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
-    expect(await screen.findByText(/yours is 242 in around, 82 in over/)).toBeInTheDocument();
+    // Too big for Small: refused before sending, in the server's words, under the width field.
+    expect(
+      await screen.findByText('This category takes quilts less than 160 in around (perimeter); yours is 242 in around, 82 in over.'),
+    ).toBeInTheDocument();
+    expect(screen.getByText(/yours is 242 in around, 82 in over/)).toBeInTheDocument();
     expect(screen.getByLabelText('Width (inches)')).toHaveAccessibleDescription(/82 in over/);
+    expect(screen.getByTestId('size-warning')).toHaveTextContent(/^It does not fit Small\.Choose another category, or check the width and height\.$/);
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
   });
 
   it('asks a group quilt for its makers', async () => {
-    const { user } = renderEnter();
+    const { user, fetchMock } = renderEnter();
     await user.selectOptions(await screen.findByLabelText('Category'), 'Group quilts');
     await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
-    expect(await screen.findByTestId('makers-error')).toHaveTextContent('Group quilts is for quilts made by at least 3 people. Add the other makers.');
+    expect(await screen.findByTestId('makers-error')).toHaveTextContent(
+      'Group quilts is for quilts made by 3 or more people; this one names 1. Add the other makers.',
+    );
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
   });
 
   it('lets the show chair enter for a member, with that member as the first maker', async () => {
@@ -120,7 +142,7 @@ describe('Entering a quilt', () => {
     await user.type(screen.getByLabelText('Title of the quilt'), 'Hedgerow Stars');
     await user.type(screen.getByLabelText('Width (inches)'), '30');
     await user.type(screen.getByLabelText('Height (inches)'), '36 1/4');
-    await user.type(screen.getByLabelText('Quilted by'), 'Winifred Ashdown');
+    await user.type(screen.getByLabelText('Quilted by (optional)'), 'Winifred Ashdown');
     await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
     await waitFor(() => expect(requestBody(fetchMock, POST)).toMatchObject({ onBehalfOf: 31, makers: ['Winifred Ashdown'], heightIn: '36 1/4' }));
   });

@@ -220,14 +220,24 @@ export function CategoriesEditor({ categories, onSave, onDelete, deleting, delet
                         name="minMakers"
                         type="number"
                         inputMode="numeric"
-                        min={1}
+                        min={2}
+                        max={50}
                         label="Fewest makers"
                         optional
-                        help="For group quilts, for example 3."
+                        help="For group quilts: 2 to 50, for example 3. Leave empty for any number."
                       />
                     </Col>
                     <Col>
-                      <TextField name="maxEntriesPerMember" type="number" inputMode="numeric" min={1} label="Most quilts per member" optional />
+                      <TextField
+                        name="maxEntriesPerMember"
+                        type="number"
+                        inputMode="numeric"
+                        min={1}
+                        max={50}
+                        label="Most quilts per member"
+                        optional
+                        help="1 to 50. Leave empty for no limit."
+                      />
                     </Col>
                   </Row>
                   <RadioGroupField name="ruleKind" legend="Size rule" options={RULE_KIND_OPTIONS} />

@@ -8,7 +8,7 @@ import { applyServerErrors } from '@/components/ui/server-errors';
 import { SubmitButton } from '@/components/ui/submit-button';
 import type { EntryPatch } from '../api/save-entry';
 import type { Category, Entry } from '../api/types';
-import { MM_PER_INCH, sizeWarning } from '../lib/size-rule';
+import { makersProblem, sizeProblemMm } from '../lib/size-rule';
 
 type DeclineDialogProps = {
   entry: Entry | null;
@@ -70,27 +70,42 @@ type ChangeEntryDialogProps = {
 
 type ChangeValues = { categoryId: string; entryNumber: string | number };
 
-const changeSchema = yup.object({
-  categoryId: yup.string().required('Choose a category.'),
-  entryNumber: yup
-    .number()
-    .transform((value, original) => (original === '' || original == null ? undefined : value))
-    .typeError('Enter a whole number, or leave it empty.')
-    .integer('Enter a whole number, or leave it empty.')
-    .min(1, 'Entry numbers start at 1.'),
-});
+/**
+ * Why the entry cannot move to the chosen category, or null. The api checks the size rule and the
+ * makers again on a move and refuses with 400, so the dialog does not offer it.
+ */
+export function moveProblem(entry: Entry, categories: readonly Category[], categoryId: string): string | null {
+  const category = categories.find((c) => String(c.id) === categoryId);
+  if (!category || category.id === entry.categoryId) return null;
+  const size = sizeProblemMm(category.sizeRule, entry.widthMm, entry.heightMm);
+  if (size) return `It does not fit ${category.name}: ${size.message} Choose another category, or change the quilt's size first.`;
+  const makers = makersProblem(category, entry.makers.length);
+  if (makers) return `It does not fit ${category.name}: ${makers} Choose another category, or add the other makers first.`;
+  return null;
+}
+
+const changeSchema = (entry: Entry, categories: readonly Category[]) =>
+  yup.object({
+    categoryId: yup
+      .string()
+      .required('Choose a category.')
+      .test('fits', `Choose a category this quilt fits, or keep it in ${entry.categoryName}.`, (value) => !moveProblem(entry, categories, value ?? '')),
+    entryNumber: yup
+      .number()
+      .transform((value, original) => (original === '' || original == null ? undefined : value))
+      .typeError('Enter a whole number, or leave it empty.')
+      .integer('Enter a whole number, or leave it empty.')
+      .min(1, 'Entry numbers are whole numbers from 1 to 9999.')
+      .max(9999, 'Entry numbers are whole numbers from 1 to 9999.'),
+  });
 
 function MoveWarning({ entry, categories, categoryId }: { entry: Entry; categories: Category[]; categoryId: string }) {
-  const category = categories.find((c) => String(c.id) === categoryId);
-  const w = entry.widthMm / MM_PER_INCH;
-  const h = entry.heightMm / MM_PER_INCH;
-  const warning = category && category.id !== entry.categoryId ? sizeWarning(category.sizeRule, { widthIn: w, heightIn: h, perimeterIn: 2 * (w + h) }) : null;
+  const problem = moveProblem(entry, categories, categoryId);
   return (
     <div role="status">
-      {warning && (
+      {problem && (
         <p className="size-warning" data-testid="move-warning">
-          <strong className="d-block">It does not fit {category?.name}.</strong>
-          {warning} You can still move it.
+          {problem}
         </p>
       )}
     </div>
@@ -105,7 +120,7 @@ export function ChangeEntryDialog({ entry, categories, onHide, onSave }: ChangeE
       {entry && (
         <Formik<ChangeValues>
           initialValues={{ categoryId: String(entry.categoryId), entryNumber: entry.entryNumber == null ? '' : String(entry.entryNumber) }}
-          validationSchema={changeSchema}
+          validationSchema={changeSchema(entry, categories)}
           onSubmit={async (values, helpers) => {
             helpers.setStatus(undefined);
             const input: EntryPatch = {};
@@ -144,6 +159,7 @@ export function ChangeEntryDialog({ entry, categories, onHide, onSave }: ChangeE
                   type="number"
                   inputMode="numeric"
                   min={1}
+                  max={9999}
                   label="Entry number"
                   optional
                   help="Printed on the hang tag and the ballot. Leave empty for none."

@@ -15,6 +15,7 @@ import {
   emptyEntryValues,
   ENTRY_FIELD_MAP,
   entrySchema,
+  MAKERS_MAX,
   STORY_MAX,
   toEntryInput,
   toEntryPatch,
@@ -23,7 +24,7 @@ import {
   type EntryValues,
 } from '../lib/entry-form';
 import { showPaths } from '../lib/paths';
-import { readSize, sizeWarning } from '../lib/size-rule';
+import { readSize, sizeProblem } from '../lib/size-rule';
 
 export type OnBehalfMember = { membershipId: number | string; name: string };
 
@@ -41,22 +42,27 @@ type EntryFormProps = {
   onSaved: (entry: Entry) => void;
 };
 
-/** The perimeter as she types, and a warning when the quilt breaks the chosen category's rule. */
+/**
+ * The perimeter as she types, and a plain refusal when the quilt breaks the chosen category's rule:
+ * the api does not take such an entry. Once the same words show under the size field, only the
+ * heading and what to do stay here, so they are not read out twice.
+ */
 function SizePreview({ show, perimeterId }: { show: EntryFormProps['show']; perimeterId: string }) {
-  const { values } = useFormikContext<EntryValues>();
+  const { values, errors, touched, submitCount } = useFormikContext<EntryValues>();
   const size = readSize(values.widthIn, values.heightIn);
   const category = show.categories.find((c) => String(c.id) === values.categoryId);
-  const warning = sizeWarning(category?.sizeRule, size);
+  const problem = sizeProblem(category?.sizeRule, size);
+  const shownUnderField = problem && errors[problem.field] === problem.message && (touched[problem.field] || submitCount > 0);
   return (
     <>
       <p id={perimeterId} className="perimeter-line fw-bold mb-2" data-testid="perimeter">
         {size ? `Perimeter ${formatInches(size.perimeterIn)} in` : 'Perimeter: type the width and height to see it.'}
       </p>
       <div role="status" className="mb-3">
-        {warning && category && (
+        {problem && category && (
           <div className="size-warning" data-testid="size-warning">
-            <strong className="d-block">This may not fit {category.name}.</strong>
-            {warning} You can still send it; the show chair decides, and may move it to another category.
+            <strong className="d-block">It does not fit {category.name}.</strong>
+            {shownUnderField ? '' : `${problem.message} `}Choose another category, or check the width and height.
           </div>
         )}
       </div>
@@ -119,16 +125,20 @@ function MakersField() {
                 {groupError}
               </p>
             )}
-            <Button
-              variant="outline-primary"
-              className="mb-3"
-              onClick={() => {
-                focusLast.current = true;
-                push('');
-              }}
-            >
-              Add another maker
-            </Button>
+            {count < MAKERS_MAX ? (
+              <Button
+                variant="outline-primary"
+                className="mb-3"
+                onClick={() => {
+                  focusLast.current = true;
+                  push('');
+                }}
+              >
+                Add another maker
+              </Button>
+            ) : (
+              <p className="text-body-secondary">An entry can list at most {MAKERS_MAX} makers.</p>
+            )}
           </div>
         )}
       </FieldArray>
@@ -227,7 +237,13 @@ export function EntryForm({ guildId, show, entry, makerName, members, onCreate, 
             </Row>
             <SizePreview show={show} perimeterId={perimeterId} />
             <MakersField />
-            <TextField name="quilter" label="Quilted by" autoComplete="off" help="If you quilted it yourself, type your own name." />
+            <TextField
+              name="quilter"
+              label="Quilted by"
+              optional
+              autoComplete="off"
+              help="If you quilted it yourself, type your own name. Leave empty if you do not know."
+            />
             <TextField name="techniques" label="Techniques" optional autoComplete="off" help="For example: hand appliqué, machine quilted." />
             <TextareaField
               name="story"

@@ -31,7 +31,7 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
       onSubmit={async (values, helpers) => {
         helpers.setStatus(undefined);
         try {
-          const saved = await onSave(toShowInput(values, currency, { create, votingLocked: locked, timeZone }));
+          const saved = await onSave(toShowInput(values, currency, { create, votingLocked: locked, votingState: show?.votingState, timeZone }));
           if (!create) helpers.setStatus({ success: 'The show is saved.' });
           onSaved?.(saved);
         } catch (error) {
@@ -64,7 +64,13 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
                 <TextField name="entriesOpenOn" type="date" label="Entries open" optional />
               </Col>
               <Col>
-                <TextField name="entriesCloseOn" type="date" label="Entries close" optional help="The last day members can enter." />
+                <TextField
+                  name="entriesCloseOn"
+                  type="date"
+                  label="Entries close"
+                  optional
+                  help="The last day members can enter. It must be on or before the show's last day."
+                />
               </Col>
             </Row>
             <TextField
@@ -72,9 +78,10 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
               type="number"
               inputMode="numeric"
               min={1}
+              max={50}
               label="Most quilts one member may enter"
               optional
-              help="Leave empty for no limit."
+              help="1 to 50. Leave empty for no limit."
             />
             <Row xs={1} sm={2} className="g-0 gx-sm-3">
               <Col>
@@ -140,7 +147,18 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
             <fieldset disabled={locked} aria-describedby={locked ? 'voting-locked-note' : undefined} className="voting-choice">
               <RadioGroupField name="votingKind" legend="How people vote" options={VOTING_KIND_OPTIONS} />
               {values.votingKind === 'ranked' && (
-                <RadioGroupField name="rankedMethod" legend="How ranked ballots are counted" options={RANKED_METHOD_OPTIONS} />
+                <>
+                  <TextField
+                    name="rankDepth"
+                    type="number"
+                    inputMode="numeric"
+                    min={2}
+                    max={5}
+                    label="Places on a ranked ballot"
+                    help="How many quilts each voter puts in order: 2 to 5. Usually 3. With 3/2/1 points, places after the 3rd score nothing."
+                  />
+                  <RadioGroupField name="rankedMethod" legend="How ranked ballots are counted" options={RANKED_METHOD_OPTIONS} />
+                </>
               )}
             </fieldset>
             {!create && (
@@ -150,12 +168,18 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
                   {timeZone && <> Times are in the guild’s time zone ({timeZone}).</>}
                 </p>
                 {/* TextField hands its type to the input; its list of types just does not name datetime-local. */}
+                {show?.votingState === 'closed' && <p className="locked-note">Voting has closed, and closing is final: these times can no longer change.</p>}
+                {show?.votingState === 'open' && <p className="locked-note">Voting is open: only the closing time can change.</p>}
                 <Row xs={1} sm={2} className="g-0 gx-sm-3">
                   <Col>
-                    <TextField name="votingOpensAt" type={'datetime-local' as 'text'} label="Voting opens" optional />
+                    <fieldset disabled={show?.votingState === 'open' || show?.votingState === 'closed'}>
+                      <TextField name="votingOpensAt" type={'datetime-local' as 'text'} label="Voting opens" optional />
+                    </fieldset>
                   </Col>
                   <Col>
-                    <TextField name="votingClosesAt" type={'datetime-local' as 'text'} label="Voting closes" optional />
+                    <fieldset disabled={show?.votingState === 'closed'}>
+                      <TextField name="votingClosesAt" type={'datetime-local' as 'text'} label="Voting closes" optional />
+                    </fieldset>
                   </Col>
                 </Row>
               </>

@@ -1,6 +1,6 @@
 import * as yup from 'yup';
-import { parseInches } from '@/lib/inches';
 import type { Category } from '../api/types';
+import { checkInches, inchesOrNull, inchesToStoredMm } from './inch-text';
 import { mmToInchText } from './size-rule';
 
 export type RuleKind = 'none' | 'dimensions' | 'perimeter';
@@ -110,57 +110,90 @@ export function toCategoryValues(category: Category): CategoryValues {
 }
 
 const blank = (value: string | number | null | undefined) => value == null || String(value).trim() === '';
-const inchesOf = (value: string) => (blank(value) ? null : parseInches(value));
+/** Stored millimetres, as the api compares limits; null when empty or unreadable. */
+const mmOf = (value: string | undefined) => {
+  const inches = blank(value) ? null : inchesOrNull(value);
+  return inches === null ? null : inchesToStoredMm(inches);
+};
 
-const inchField = (what: string) =>
+/** The api's limits on a category (CategoryDto, SizeRuleDto). */
+export const CATEGORY_NAME_MAX = 80;
+export const CATEGORY_DESCRIPTION_MAX = 500;
+const SIDE_MAX_IN = 600;
+const PERIMETER_MAX_IN = 2400;
+const MIN_MAKERS_MESSAGE = 'Enter the least number of makers (2 to 50), or leave it empty.';
+const MAX_ENTRIES_MESSAGE = 'Enter a whole number of quilts from 1 to 50, or leave it empty for no limit.';
+
+/** Optional inch text, read and limited as the api does; only the chosen rule's limits are sent. */
+const inchField = (kind: RuleKind, max: number) =>
   yup
     .string()
     .trim()
-    .test('inches', `Type the ${what} in inches, like 60 or 60 1/2, or leave it empty.`, (value) => {
-      if (blank(value)) return true;
-      const n = parseInches(value);
-      return n !== null && n > 0;
+    .test('inches', (value, context) => {
+      if (blank(value) || (context.parent as CategoryValues).ruleKind !== kind) return true;
+      const message = checkInches(value, { max });
+      return message ? context.createError({ message }) : true;
     });
 
-const count = (label: string, min: number) =>
+const count = (min: number, max: number, message: string) =>
   yup
     .number()
     .transform((value, original) => (blank(original) ? undefined : value))
-    .typeError(`Enter ${label} as a whole number, or leave it empty.`)
-    .integer(`Enter ${label} as a whole number, or leave it empty.`)
-    .min(min, `Enter at least ${min}, or leave it empty.`);
+    .typeError(message)
+    .integer(message)
+    .min(min, message)
+    .max(max, message);
 
-const notBelow = (other: string, message: string) =>
+/** The api allows equal limits on a side (a quilt exactly that size), but not the least above the greatest. */
+const notAbove = (other: string, message: string) =>
   function test(this: yup.TestContext, value: string | undefined) {
-    const lower = inchesOf(this.parent[other]);
-    const upper = inchesOf(value ?? '');
-    return lower === null || upper === null ? true : upper >= lower || this.createError({ message });
+    const lower = mmOf(value);
+    const upper = mmOf(this.parent[other]);
+    return lower === null || upper === null || lower <= upper || this.createError({ message });
+  };
+
+const ruleIs = (kind: RuleKind) => (p: CategoryValues) => p.ruleKind === kind;
+const onlyFor = (kind: RuleKind, test: (this: yup.TestContext, value: string | undefined) => boolean | yup.ValidationError) =>
+  function check(this: yup.TestContext, value: string | undefined) {
+    return !ruleIs(kind)(this.parent as CategoryValues) || test.call(this, value);
   };
 
 export const categorySchema = yup.object({
-  name: yup.string().trim().required('Give the category a name.'),
-  description: yup.string(),
+  name: yup.string().trim().required('Name the category.').max(CATEGORY_NAME_MAX, `Use at most ${CATEGORY_NAME_MAX} characters.`),
+  description: yup.string().trim().max(CATEGORY_DESCRIPTION_MAX, `Use at most ${CATEGORY_DESCRIPTION_MAX} characters.`),
   judged: yup.string().oneOf(['judged', 'exhibit']).required(),
-  minMakers: count('the number of makers', 1),
-  maxEntriesPerMember: count('the number of entries', 1),
+  minMakers: count(2, 50, MIN_MAKERS_MESSAGE),
+  maxEntriesPerMember: count(1, 50, MAX_ENTRIES_MESSAGE),
   ruleKind: yup.string().oneOf(['none', 'dimensions', 'perimeter']).required('Choose a size rule.'),
-  minWidthIn: inchField('width'),
-  maxWidthIn: inchField('width').test('order', notBelow('minWidthIn', 'The widest cannot be less than the narrowest.')),
-  minHeightIn: inchField('height'),
-  maxHeightIn: inchField('height')
-    .test('order', notBelow('minHeightIn', 'The longest cannot be less than the shortest.'))
-    .test('some-limit', 'Fill in at least one width or height, or choose “Any size”.', function someLimit() {
+  minWidthIn: inchField('dimensions', SIDE_MAX_IN).test('order', onlyFor('dimensions', notAbove('maxWidthIn', 'The least width is more than the greatest.'))),
+  maxWidthIn: inchField('dimensions', SIDE_MAX_IN).test(
+    'some-limit',
+    'Give at least one width or height limit, or choose “Any size”.',
+    onlyFor('dimensions', function someLimit() {
       const p = this.parent as CategoryValues;
-      return p.ruleKind !== 'dimensions' || [p.minWidthIn, p.maxWidthIn, p.minHeightIn, p.maxHeightIn].some((v) => !blank(v));
+      return [p.minWidthIn, p.maxWidthIn, p.minHeightIn, p.maxHeightIn].some((v) => !blank(v));
     }),
-  minIn: inchField('perimeter'),
+  ),
+  minHeightIn: inchField('dimensions', SIDE_MAX_IN).test('order', onlyFor('dimensions', notAbove('maxHeightIn', 'The least height is more than the greatest.'))),
+  maxHeightIn: inchField('dimensions', SIDE_MAX_IN),
+  minIn: inchField('perimeter', PERIMETER_MAX_IN).test(
+    'order',
+    onlyFor('perimeter', function order(value) {
+      const lower = mmOf(value);
+      const upper = mmOf(this.parent.maxIn);
+      // The api refuses ends that meet, even "at least 100" with "at most 100".
+      return lower === null || upper === null || lower < upper || this.createError({ message: 'The lower perimeter must be less than the upper one.' });
+    }),
+  ),
   minInclusive: yup.string(),
-  maxIn: inchField('perimeter')
-    .test('order', notBelow('minIn', 'The top of the band cannot be below its bottom.'))
-    .test('some-limit', 'Fill in the bottom or the top of the band, or choose “Any size”.', function someLimit() {
+  maxIn: inchField('perimeter', PERIMETER_MAX_IN).test(
+    'some-limit',
+    'Give a lower or an upper perimeter, or choose “Any size”.',
+    onlyFor('perimeter', function someLimit() {
       const p = this.parent as CategoryValues;
-      return p.ruleKind !== 'perimeter' || !blank(p.minIn) || !blank(p.maxIn);
+      return !blank(p.minIn) || !blank(p.maxIn);
     }),
+  ),
   maxInclusive: yup.string(),
 });
 

@@ -1,10 +1,19 @@
 import * as yup from 'yup';
-import { centsToInput, moneyToCents } from '@/features/dues/lib/money';
+import { centsToInput, moneyToCents, parseMoney } from '@/features/dues/lib/money';
 import { moneyField } from '@/features/dues/lib/money-field';
-import { parseInches } from '@/lib/inches';
 import type { Category, Entry } from '../api/types';
+import { checkInches } from './inch-text';
+import { cleanMakers, makersProblem, readSize, sizeProblem } from './size-rule';
 
+/** The api's limits on an entry (EntryDto). */
 export const STORY_MAX = 1000;
+export const TITLE_MAX = 160;
+export const MAKERS_MAX = 30;
+export const NAME_MAX = 120;
+export const TECHNIQUES_MAX = 300;
+export const QUILT_MIN_IN = 4;
+export const QUILT_MAX_IN = 200;
+const PRICE_MAX_CENTS = 10_000_000;
 
 export type EntryValues = {
   categoryId: string;
@@ -27,7 +36,7 @@ export type EntryInput = {
   widthIn: string;
   heightIn: string;
   makers: string[];
-  quilter: string;
+  quilter?: string;
   techniques?: string;
   story?: string;
   forSale: boolean;
@@ -70,42 +79,63 @@ export function toEntryValues(entry: Entry, currency: string): EntryValues {
   };
 }
 
-const inchesField = (what: string) =>
+type SchemaCategory = Pick<Category, 'id' | 'name' | 'minMakers'> & Partial<Pick<Category, 'sizeRule'>>;
+
+/** The api refuses a quilt its category's rule does not take, so she is told before sending. */
+const inchesField = (what: string, side: 'widthIn' | 'heightIn', categories: readonly SchemaCategory[]) =>
   yup
     .string()
     .trim()
     .required(`Enter the ${what} in inches.`)
-    .test('inches', `Type the ${what} in inches, like 60, 60 1/2 or 60.5.`, (value) => {
+    .test('inches', (value, context) => {
       if (!value) return true;
-      const inches = parseInches(value);
-      return inches !== null && inches > 0;
+      const message = checkInches(value, { min: QUILT_MIN_IN, max: QUILT_MAX_IN });
+      return message ? context.createError({ message }) : true;
+    })
+    .test('fits', (_value, context) => {
+      const parent = context.parent as EntryValues;
+      const category = categories.find((c) => String(c.id) === parent.categoryId);
+      const problem = sizeProblem(category?.sizeRule, readSize(parent.widthIn, parent.heightIn));
+      return problem && problem.field === side ? context.createError({ message: problem.message }) : true;
     });
 
-export const entrySchema = (currency: string, categories: readonly Pick<Category, 'id' | 'name' | 'minMakers'>[]) =>
+export const entrySchema = (currency: string, categories: readonly SchemaCategory[]) =>
   yup.object({
     categoryId: yup.string().required('Choose a category.'),
-    title: yup.string().trim().required('Give your quilt a title.'),
-    widthIn: inchesField('width'),
-    heightIn: inchesField('height'),
+    title: yup.string().trim().required('Give the quilt a title.').max(TITLE_MAX, `Use at most ${TITLE_MAX} characters.`),
+    widthIn: inchesField('width', 'widthIn', categories),
+    heightIn: inchesField('height', 'heightIn', categories),
     makers: yup
       .array()
-      .of(yup.string().trim().required('Type the maker’s name, or remove this line.'))
+      .of(
+        yup
+          .string()
+          .trim()
+          .required('Type the maker’s name, or remove this line.')
+          .max(NAME_MAX, `Use at most ${NAME_MAX} characters for each maker's name.`),
+      )
       .min(1, 'Name at least one maker.')
+      .test('max-makers', `List at most ${MAKERS_MAX} makers.`, (makers) => (makers ?? []).filter((m) => m && m.trim()).length <= MAKERS_MAX)
       .test('min-makers', (makers, context) => {
         const category = categories.find((c) => String(c.id) === context.parent.categoryId);
-        const needed = category?.minMakers ?? 0;
-        const named = (makers ?? []).filter((m) => m && m.trim()).length;
-        if (needed > 1 && named < needed)
-          return context.createError({ message: `${category?.name} is for quilts made by at least ${needed} people. Add the other makers.` });
-        return true;
+        const problem = makersProblem(category, cleanMakers(makers ?? []).length);
+        return problem ? context.createError({ message: `${problem} Add the other makers.` }) : true;
       }),
-    quilter: yup.string().trim().required('Say who quilted it. If it was you, type your own name.'),
-    techniques: yup.string().trim(),
-    story: yup.string().max(STORY_MAX, `Keep the story to ${STORY_MAX} characters.`),
+    quilter: yup.string().trim().max(NAME_MAX, `Use at most ${NAME_MAX} characters.`),
+    techniques: yup.string().trim().max(TECHNIQUES_MAX, `Use at most ${TECHNIQUES_MAX} characters.`),
+    story: yup.string().trim().max(STORY_MAX, 'Keep the story to 1,000 characters.'),
     forSale: yup.boolean(),
     price: yup.string().when('forSale', {
       is: true,
-      then: () => moneyField(currency, { required: 'Enter the price, or untick “For sale”.', min: 1, minMessage: 'The price must be more than 0.' }),
+      then: () =>
+        moneyField(currency, { required: 'Enter the price, or untick “For sale”.', min: 1, minMessage: 'The price must be more than 0.' }).test(
+          'price-max',
+          `The price can be at most ${centsToInput(PRICE_MAX_CENTS, currency)}.`,
+          (value) => {
+            const parsed = value ? parseMoney(value, currency) : null;
+            return !parsed?.ok || parsed.cents <= PRICE_MAX_CENTS;
+          },
+        ),
       otherwise: (s) => s,
     }),
     onBehalfOf: yup.string(),
@@ -115,6 +145,7 @@ const names = (makers: readonly string[]) => makers.map((m) => m.trim()).filter(
 
 /** A new entry's body. Empty optional texts are left out; the price only goes with "for sale". */
 export function toEntryInput(values: EntryValues, currency: string): EntryInput {
+  const quilter = values.quilter.trim();
   const techniques = values.techniques.trim();
   const story = values.story.trim();
   return {
@@ -123,7 +154,7 @@ export function toEntryInput(values: EntryValues, currency: string): EntryInput 
     widthIn: values.widthIn.trim(),
     heightIn: values.heightIn.trim(),
     makers: names(values.makers),
-    quilter: values.quilter.trim(),
+    ...(quilter ? { quilter } : {}),
     ...(techniques ? { techniques } : {}),
     ...(story ? { story } : {}),
     forSale: values.forSale,

@@ -32,7 +32,7 @@ export const VOTING_STATE: Record<VotingState, { label: string; tone: Tone }> = 
 export const VOTING_KIND_OPTIONS: readonly { value: VotingKind; label: string }[] = [
   { value: 'per_category', label: 'One vote per category (the usual viewer’s choice)' },
   { value: 'approval', label: 'Approval: vote for as many as you like in each category' },
-  { value: 'ranked', label: 'Ranked: pick your favourite three for one overall award' },
+  { value: 'ranked', label: 'Ranked: put favourite quilts in order for one overall award' },
 ];
 
 export const VOTING_KIND_SHORT: Record<VotingKind, string> = {

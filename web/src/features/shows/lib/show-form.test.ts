@@ -63,11 +63,62 @@ describe('show form', () => {
     expect(
       await problems({ ...values, endsOn: '2026-10-01', entryFeeCap: '5', sleeveDepthIn: 'four', votingOpensAt: '2026-10-03T10:00', votingClosesAt: '2026-10-02T10:00' }),
     ).toEqual([
-      'The last day cannot be before the first day.',
+      'The show cannot end before it starts.',
       'The most a member pays must be at least one entry fee.',
-      'Type the sleeve depth in inches, like 4 or 3 1/2.',
-      'Voting cannot close before it opens.',
+      'Could not read "four" as inches. Write it like 12 1/2, 12.5 or 12½.',
+      'Voting must close after it opens.',
     ]);
+  });
+
+  it('keeps entries within the show: open and close on or before its last day', async () => {
+    expect(await problems({ ...values, entriesOpenOn: '2026-10-05', entriesCloseOn: '2026-10-06' })).toEqual([
+      "Entries must open on or before the show's last day.",
+      'Entries must close by the last day of the show.',
+    ]);
+    expect(await problems({ ...values, entriesOpenOn: '2026-10-04', entriesCloseOn: '2026-10-04' })).toEqual([]);
+    expect(await problems({ ...values, entriesOpenOn: '2026-09-20', entriesCloseOn: '2026-09-10' })).toEqual(['Entries cannot close before they open.']);
+    expect(await problems({ ...values, startsOn: '2027-02-30', endsOn: '2027-03-01' })).toEqual(['That date does not exist.']);
+  });
+
+  it('holds numbers, texts, money and inches to the api’s limits', async () => {
+    const quilts = 'Enter a whole number of quilts from 1 to 50, or leave it empty for no limit.';
+    expect(await problems({ ...values, maxEntriesPerMember: 0 })).toEqual([quilts]);
+    expect(await problems({ ...values, maxEntriesPerMember: 51 })).toEqual([quilts]);
+    expect(await problems({ ...values, maxEntriesPerMember: 50 })).toEqual([]);
+    expect(await problems({ ...values, name: 'x'.repeat(121), venue: 'x'.repeat(201), description: 'x'.repeat(4001) })).toEqual([
+      'Use at most 120 characters.',
+      'Use at most 200 characters.',
+      'Use at most 4,000 characters.',
+    ]);
+    expect(await problems({ ...values, entryFee: '1000.01', entryFeeCap: '' })).toEqual(['The entry fee must be at most 1,000.00.']);
+    expect(await problems({ ...values, entryFee: '', entryFeeCap: '0' })).toEqual(['The cap must be more than 0, or leave it empty for no cap.']);
+    expect(await problems({ ...values, sleeveDepthIn: '12 1/2', splitOverIn: '400,5' })).toEqual([
+      'Must be at most 12 inches.',
+      'Could not read "400,5" as inches. Write it like 12 1/2, 12.5 or 12½.',
+    ]);
+    expect(await problems({ ...values, sleeveDepthIn: '3', narrowDepthIn: '3 1/2' })).toEqual([
+      "The narrow quilts' sleeve should not be deeper than the usual one.",
+    ]);
+  });
+
+  it('asks how many places a ranked ballot lists, 2 to 5, and sends it as a number', async () => {
+    const ranked: ShowValues = { ...values, votingKind: 'ranked', rankDepth: '6' };
+    expect(await problems(ranked)).toEqual(['A ranked ballot lists 2 to 5 places.']);
+    expect(await problems({ ...ranked, rankDepth: '' })).toEqual(['A ranked ballot lists 2 to 5 places.']);
+    expect(await problems({ ...values, rankDepth: '6' })).toEqual([]);
+    expect(toShowInput({ ...ranked, rankDepth: '5' }, 'USD', { create: true })).toMatchObject({ votingKind: 'ranked', rankDepth: 5 });
+    expect(toShowInput({ ...ranked, rankDepth: '5' }, 'USD', { create: false, votingLocked: true })).not.toHaveProperty('rankDepth');
+    expect(NEW_SHOW_VALUES.rankDepth).toBe(3);
+  });
+
+  it('leaves out the schedule times the api no longer takes once voting has opened or closed', () => {
+    const timed = { ...values, votingOpensAt: '2026-10-02T10:00', votingClosesAt: '2026-10-04T16:00' };
+    const open = toShowInput(timed, 'USD', { create: false, votingLocked: true, votingState: 'open', timeZone: 'America/Chicago' });
+    expect(open).not.toHaveProperty('votingOpensAt');
+    expect(open).toHaveProperty('votingClosesAt', '2026-10-04T21:00:00.000Z');
+    const closed = toShowInput(timed, 'USD', { create: false, votingLocked: true, votingState: 'closed', timeZone: 'America/Chicago' });
+    expect(closed).not.toHaveProperty('votingOpensAt');
+    expect(closed).not.toHaveProperty('votingClosesAt');
   });
 
   it('fills the form back from a show', () => {
@@ -86,6 +137,7 @@ describe('show form', () => {
       sleeve: { depthIn: 4, narrowUnderIn: 30, narrowDepthIn: 3.5, splitOverIn: null, text: '' },
       votingKind: 'ranked',
       rankedMethod: 'instant_runoff',
+      rankDepth: 4,
       votingOpensAt: '2026-10-02T15:00:00.000Z',
       votingClosesAt: null,
       makersHidden: false,
@@ -98,6 +150,7 @@ describe('show form', () => {
       splitOverIn: '',
       votingOpensAt: '2026-10-02T10:00',
       entriesCloseOn: '2026-09-20',
+      rankDepth: 4,
     });
     expect(isVotingLocked({ votingOpenedAt: null, votingState: 'scheduled' })).toBe(false);
     expect(isVotingLocked({ votingOpenedAt: '2026-10-02T15:00:00Z', votingState: 'closed' })).toBe(true);

@@ -1,7 +1,8 @@
 import * as yup from 'yup';
 import { centsToInput, parseMoney } from '@/features/dues/lib/money';
-import { formatInches, parseInches } from '@/lib/inches';
+import { formatInches } from '@/lib/inches';
 import type { RankedMethod, Show, VotingKind } from '../api/types';
+import { checkInches, inchesOrNull, inchesToStoredMm } from './inch-text';
 import { isoToLocalInput, localInputToIso } from './zoned-time';
 
 export type ShowValues = {
@@ -22,6 +23,8 @@ export type ShowValues = {
   splitOverIn: string;
   votingKind: VotingKind;
   rankedMethod: RankedMethod;
+  /** How many places a ranked ballot lists. */
+  rankDepth: string | number;
   /** datetime-local values on the guild's clocks. */
   votingOpensAt: string;
   votingClosesAt: string;
@@ -45,6 +48,7 @@ export type ShowInput = {
   splitOverIn?: string | null;
   votingKind?: VotingKind;
   rankedMethod?: RankedMethod;
+  rankDepth?: number;
   votingOpensAt?: string | null;
   votingClosesAt?: string | null;
   makersHidden?: boolean;
@@ -70,6 +74,7 @@ export const NEW_SHOW_VALUES: ShowValues = {
   splitOverIn: '90',
   votingKind: 'per_category',
   rankedMethod: 'points',
+  rankDepth: 3,
   votingOpensAt: '',
   votingClosesAt: '',
   makersHidden: false,
@@ -95,6 +100,7 @@ export function toShowValues(show: Show, timeZone?: string): ShowValues {
     splitOverIn: inchText(show.sleeve.splitOverIn),
     votingKind: show.votingKind,
     rankedMethod: show.rankedMethod,
+    rankDepth: show.rankDepth ?? 3,
     votingOpensAt: isoToLocalInput(show.votingOpensAt, timeZone),
     votingClosesAt: isoToLocalInput(show.votingClosesAt, timeZone),
     makersHidden: show.makersHidden,
@@ -116,65 +122,106 @@ const cents = (value: string, currency: string) => {
   return parsed.ok ? parsed.cents : 0;
 };
 
-const inches = (label: string, required: boolean) =>
+/** The api's limits on a show (CreateShowDto). */
+export const SHOW_NAME_MAX = 120;
+export const VENUE_MAX = 200;
+export const SHOW_DESCRIPTION_MAX = 4000;
+const MAX_FEE_CENTS = 100_000;
+const RANK_DEPTH_MESSAGE = 'A ranked ballot lists 2 to 5 places.';
+const MAX_ENTRIES_MESSAGE = 'Enter a whole number of quilts from 1 to 50, or leave it empty for no limit.';
+
+/** Inch text read and limited as the api does. */
+const inches = (range: { min?: number; max: number }, required: boolean) =>
   yup
     .string()
     .trim()
-    .test('inches', `Type ${label} in inches, like 4 or 3 1/2.`, (value) => {
+    .test('inches', (value, context) => {
       if (blank(value)) return !required;
-      const n = parseInches(value);
-      return n !== null && n > 0;
+      const message = checkInches(value, range);
+      return message ? context.createError({ message }) : true;
     });
 
-const DATE = /^\d{4}-\d{2}-\d{2}$/;
+const mmOf = (value: string | undefined) => {
+  const n = blank(value) ? null : inchesOrNull(value);
+  return n === null ? null : inchesToStoredMm(n);
+};
+
+const DATE = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
+/** 2027-02-30 matches the pattern but is no day; the api refuses it. */
+const realDate = (s: string) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s);
 const dateField = (required?: string) => {
-  const base = yup.string().trim().matches(DATE, { message: 'Write the date like 2026-10-02.', excludeEmptyString: true });
+  const base = yup
+    .string()
+    .trim()
+    .matches(DATE, { message: 'Write the date as yyyy-mm-dd, like 2027-05-14.', excludeEmptyString: true })
+    .test('real', 'That date does not exist.', (value) => !value || !DATE.test(value) || realDate(value));
   return required ? base.required(required) : base;
 };
 
 export const showSchema = (currency: string) =>
   yup.object({
-    name: yup.string().trim().required('Give the show a name.'),
-    venue: yup.string().trim().required('Say where the show is.'),
-    description: yup.string(),
+    name: yup.string().trim().required('Give the show a name.').max(SHOW_NAME_MAX, 'Use at most 120 characters.'),
+    venue: yup.string().trim().required('Say where the show is.').max(VENUE_MAX, 'Use at most 200 characters.'),
+    description: yup.string().trim().max(SHOW_DESCRIPTION_MAX, 'Use at most 4,000 characters.'),
     startsOn: dateField('Enter the first day of the show.'),
     endsOn: dateField('Enter the last day of the show.').test(
       'after-start',
-      'The last day cannot be before the first day.',
+      'The show cannot end before it starts.',
       (value, context) => !value || !context.parent.startsOn || value >= context.parent.startsOn,
     ),
-    entriesOpenOn: dateField(),
-    entriesCloseOn: dateField().test(
-      'after-open',
-      'Entries cannot close before they open.',
-      (value, context) => !value || !context.parent.entriesOpenOn || value >= context.parent.entriesOpenOn,
+    entriesOpenOn: dateField().test(
+      'by-last-day',
+      "Entries must open on or before the show's last day.",
+      (value, context) => !value || !context.parent.endsOn || value <= context.parent.endsOn,
     ),
+    entriesCloseOn: dateField()
+      .test('by-last-day', 'Entries must close by the last day of the show.', (value, context) => !value || !context.parent.endsOn || value <= context.parent.endsOn)
+      .test('after-open', 'Entries cannot close before they open.', (value, context) => !value || !context.parent.entriesOpenOn || value >= context.parent.entriesOpenOn),
     maxEntriesPerMember: yup
       .number()
       .transform((value, original) => (blank(original) ? undefined : value))
-      .typeError('Enter a whole number, or leave it empty for no limit.')
-      .integer('Enter a whole number, or leave it empty for no limit.')
-      .min(1, 'Allow at least 1 entry, or leave it empty for no limit.'),
-    entryFee: optionalMoney(currency, 'Type the fee like 10 or 10.00.'),
-    entryFeeCap: optionalMoney(currency, 'Type the cap like 30 or 30.00.').test(
-      'cap-above-fee',
-      'The most a member pays must be at least one entry fee.',
-      (value, context) => blank(value) || blank(context.parent.entryFee) || cents(String(value), currency) >= cents(context.parent.entryFee, currency),
+      .typeError(MAX_ENTRIES_MESSAGE)
+      .integer(MAX_ENTRIES_MESSAGE)
+      .min(1, MAX_ENTRIES_MESSAGE)
+      .max(50, MAX_ENTRIES_MESSAGE),
+    entryFee: optionalMoney(currency, 'Type the fee like 10 or 10.00.').test(
+      'fee-max',
+      'The entry fee must be at most 1,000.00.',
+      (value) => blank(value) || cents(String(value), currency) <= MAX_FEE_CENTS,
     ),
-    sleeveDepthIn: inches('the sleeve depth', true).required('Enter the sleeve depth in inches.'),
-    narrowUnderIn: inches('the width', false),
-    narrowDepthIn: inches('the sleeve depth', false).test(
-      'needs-depth',
-      'Enter the sleeve depth for narrow quilts, or empty the width above.',
-      (value, context) => blank(context.parent.narrowUnderIn) || !blank(value),
-    ),
-    splitOverIn: inches('the width', false),
+    entryFeeCap: optionalMoney(currency, 'Type the cap like 30 or 30.00.')
+      .test('cap-above-zero', 'The cap must be more than 0, or leave it empty for no cap.', (value) => blank(value) || cents(String(value), currency) > 0)
+      .test('cap-max', 'The cap must be at most 1,000.00.', (value) => blank(value) || cents(String(value), currency) <= MAX_FEE_CENTS)
+      .test(
+        'cap-above-fee',
+        'The most a member pays must be at least one entry fee.',
+        (value, context) => blank(value) || blank(context.parent.entryFee) || cents(String(value), currency) >= cents(context.parent.entryFee, currency),
+      ),
+    sleeveDepthIn: inches({ min: 1, max: 12 }, true).required('Enter the sleeve depth in inches.'),
+    narrowUnderIn: inches({ max: 200 }, false),
+    narrowDepthIn: inches({ max: 12 }, false)
+      .test(
+        'needs-depth',
+        'Enter the sleeve depth for narrow quilts, or empty the width above.',
+        (value, context) => blank(context.parent.narrowUnderIn) || !blank(value),
+      )
+      .test('not-deeper', "The narrow quilts' sleeve should not be deeper than the usual one.", (value, context) => {
+        const narrow = mmOf(value);
+        const usual = mmOf(context.parent.sleeveDepthIn);
+        return blank(context.parent.narrowUnderIn) || narrow === null || usual === null || narrow <= usual;
+      }),
+    splitOverIn: inches({ max: 400 }, false),
     votingKind: yup.string().oneOf(['per_category', 'approval', 'ranked']).required('Choose how people vote.'),
     rankedMethod: yup.string().oneOf(['points', 'instant_runoff']),
+    rankDepth: yup.mixed().test('depth', RANK_DEPTH_MESSAGE, (value, context) => {
+      if (context.parent.votingKind !== 'ranked') return true;
+      const n = blank(value as string) ? NaN : Number(value);
+      return Number.isInteger(n) && n >= 2 && n <= 5;
+    }),
     votingOpensAt: yup.string(),
     votingClosesAt: yup
       .string()
-      .test('after-opening', 'Voting cannot close before it opens.', (value, context) => !value || !context.parent.votingOpensAt || value > context.parent.votingOpensAt),
+      .test('after-opening', 'Voting must close after it opens.', (value, context) => !value || !context.parent.votingOpensAt || value > context.parent.votingOpensAt),
     makersHidden: yup.boolean(),
   });
 
@@ -183,11 +230,13 @@ type ToInputOptions = {
   create: boolean;
   /** Voting has opened: its kind and counting are fixed, so they are not sent. */
   votingLocked?: boolean;
+  /** The voting desk's state: once open the opening time is history, once closed neither time can change. */
+  votingState?: Show['votingState'];
   timeZone?: string;
 };
 
 /** The api body. Inch fields go as typed text; money as whole cents; a change sends null to clear a field. */
-export function toShowInput(values: ShowValues, currency: string, { create, votingLocked = false, timeZone }: ToInputOptions): ShowInput {
+export function toShowInput(values: ShowValues, currency: string, { create, votingLocked = false, votingState, timeZone }: ToInputOptions): ShowInput {
   const text = (value: string) => value.trim();
   const maybe = <T>(value: T | null): T | null | undefined => (value === null && create ? undefined : value);
   const input: ShowInput = {
@@ -210,10 +259,14 @@ export function toShowInput(values: ShowValues, currency: string, { create, voti
   if (!votingLocked) {
     input.votingKind = values.votingKind;
     input.rankedMethod = values.rankedMethod;
+    if (values.votingKind === 'ranked') input.rankDepth = Number(values.rankDepth);
   }
   if (!create) {
-    input.votingOpensAt = blank(values.votingOpensAt) ? null : localInputToIso(values.votingOpensAt, timeZone);
-    input.votingClosesAt = blank(values.votingClosesAt) ? null : localInputToIso(values.votingClosesAt, timeZone);
+    // The api refuses any opening time once voting is open, and any time at all once it has closed.
+    if (votingState !== 'open' && votingState !== 'closed')
+      input.votingOpensAt = blank(values.votingOpensAt) ? null : localInputToIso(values.votingOpensAt, timeZone);
+    if (votingState !== 'closed')
+      input.votingClosesAt = blank(values.votingClosesAt) ? null : localInputToIso(values.votingClosesAt, timeZone);
     input.makersHidden = values.makersHidden;
   }
   for (const k of Object.keys(input) as (keyof ShowInput)[]) if (input[k] === undefined) delete input[k];

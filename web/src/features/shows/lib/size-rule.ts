@@ -1,62 +1,96 @@
-import { formatInches, parseInches } from '@/lib/inches';
-import type { SizeRule } from '../api/types';
+import { formatInches } from '@/lib/inches';
+import type { Category, SizeRule } from '../api/types';
+import { inchesOrNull, inchesToStoredMm } from './inch-text';
 
 export const MM_PER_INCH = 25.4;
 
 /** Millimetres as quilters write inches, to the nearest 1/8: 1536.7 → "60 1/2". */
-export const mmToInchText = (mm: number) => formatInches(mm / MM_PER_INCH);
+export const mmToInchText = (mm: number) => formatInches(Number((mm / MM_PER_INCH).toPrecision(12)));
 
-// Sizes are typed to the nearest 1/8 in; a limit is met when a quilt is within half of that of it.
-const HALF_EIGHTH = 1 / 16;
-const near = (a: number, b: number) => Math.abs(a - b) < HALF_EIGHTH;
+// Sizes are entered to the nearest 1/8 inch; the api compares at that grain, in stored millimetres.
+const EIGHTH_MM = MM_PER_INCH / 8;
+const near = (a: number, b: number) => Math.abs(a - b) < EIGHTH_MM / 2;
 
 export type QuiltSize = { widthIn: number; heightIn: number; perimeterIn: number };
 
-/** Width and height as typed ("60 1/2", "60.5", "60½"), or null until both can be read. */
+/** Width and height as typed ("60 1/2", "60.5", "60½"), or null until the api could read both. */
 export function readSize(width: string, height: string): QuiltSize | null {
-  const w = parseInches(width);
-  const h = parseInches(height);
+  const w = inchesOrNull(width);
+  const h = inchesOrNull(height);
   if (w === null || h === null || w <= 0 || h <= 0) return null;
   return { widthIn: w, heightIn: h, perimeterIn: 2 * (w + h) };
 }
 
+/** The field a size problem belongs to, as the api names it. */
+export type SizeProblem = { field: 'widthIn' | 'heightIn'; message: string };
+
 /**
- * What a category's rule says about a quilt, for a warning while she types; null when it fits.
- * The api checks again and has the last word.
+ * The first limit of a category's rule the quilt breaks, in the api's words, or null when it fits.
+ * A copy of the api's check (same millimetres, same rounding), because the api refuses such a quilt.
  */
-export function sizeWarning(rule: SizeRule | undefined, size: QuiltSize | null): string | null {
-  if (!rule || !size) return null;
-  const f = formatInches;
+export function sizeProblemMm(rule: SizeRule | undefined, widthMm: number, heightMm: number): SizeProblem | null {
+  if (!rule) return null;
+  const inch = mmToInchText;
   if (rule.kind === 'dimensions') {
-    const { widthIn: w, heightIn: h } = size;
-    const maxW = rule.maxWidthMm != null ? rule.maxWidthMm / MM_PER_INCH : null;
-    const minW = rule.minWidthMm != null ? rule.minWidthMm / MM_PER_INCH : null;
-    const maxH = rule.maxHeightMm != null ? rule.maxHeightMm / MM_PER_INCH : null;
-    const minH = rule.minHeightMm != null ? rule.minHeightMm / MM_PER_INCH : null;
-    if (maxW !== null && w > maxW && !near(w, maxW)) return `This category takes quilts at most ${f(maxW)} in wide. Yours is ${f(w - maxW)} in too wide.`;
-    if (minW !== null && w < minW && !near(w, minW)) return `This category takes quilts at least ${f(minW)} in wide. Yours is ${f(minW - w)} in too narrow.`;
-    if (maxH !== null && h > maxH && !near(h, maxH)) return `This category takes quilts at most ${f(maxH)} in high. Yours is ${f(h - maxH)} in too long.`;
-    if (minH !== null && h < minH && !near(h, minH)) return `This category takes quilts at least ${f(minH)} in high. Yours is ${f(minH - h)} in too short.`;
+    if (rule.maxWidthMm != null && widthMm > rule.maxWidthMm && !near(widthMm, rule.maxWidthMm))
+      return { field: 'widthIn', message: `This category takes quilts at most ${inch(rule.maxWidthMm)} in wide; yours is ${inch(widthMm)} in, ${inch(widthMm - rule.maxWidthMm)} in too wide.` };
+    if (rule.minWidthMm != null && widthMm < rule.minWidthMm && !near(widthMm, rule.minWidthMm))
+      return { field: 'widthIn', message: `This category takes quilts at least ${inch(rule.minWidthMm)} in wide; yours is ${inch(widthMm)} in, ${inch(rule.minWidthMm - widthMm)} in too narrow.` };
+    if (rule.maxHeightMm != null && heightMm > rule.maxHeightMm && !near(heightMm, rule.maxHeightMm))
+      return { field: 'heightIn', message: `This category takes quilts at most ${inch(rule.maxHeightMm)} in high; yours is ${inch(heightMm)} in, ${inch(heightMm - rule.maxHeightMm)} in too long.` };
+    if (rule.minHeightMm != null && heightMm < rule.minHeightMm && !near(heightMm, rule.minHeightMm))
+      return { field: 'heightIn', message: `This category takes quilts at least ${inch(rule.minHeightMm)} in high; yours is ${inch(heightMm)} in, ${inch(rule.minHeightMm - heightMm)} in too short.` };
     return null;
   }
   if (rule.kind === 'perimeter') {
-    const p = size.perimeterIn;
+    const p = 2 * (widthMm + heightMm);
+    const yours = `yours is ${inch(p)} in around`;
     if (rule.maxMm != null) {
-      const max = rule.maxMm / MM_PER_INCH;
-      const over = rule.maxInclusive ? p > max && !near(p, max) : p > max || near(p, max);
+      const over = rule.maxInclusive ? p > rule.maxMm && !near(p, rule.maxMm) : p > rule.maxMm || near(p, rule.maxMm);
       if (over) {
-        const by = near(p, max) ? 'exactly on the limit' : `${f(p - max)} in over`;
-        return `This category takes quilts ${rule.maxInclusive ? 'at most' : 'less than'} ${f(max)} in around. Yours is ${f(p)} in around, ${by}.`;
+        const by = near(p, rule.maxMm) ? 'exactly on the limit' : `${inch(p - rule.maxMm)} in over`;
+        return { field: 'widthIn', message: `This category takes quilts ${rule.maxInclusive ? 'at most' : 'less than'} ${inch(rule.maxMm)} in around (perimeter); ${yours}, ${by}.` };
       }
     }
     if (rule.minMm != null) {
-      const min = rule.minMm / MM_PER_INCH;
-      const under = rule.minInclusive ? p < min && !near(p, min) : p < min || near(p, min);
+      const under = rule.minInclusive ? p < rule.minMm && !near(p, rule.minMm) : p < rule.minMm || near(p, rule.minMm);
       if (under) {
-        const by = near(p, min) ? 'exactly on the limit' : `${f(min - p)} in short`;
-        return `This category takes quilts ${rule.minInclusive ? 'at least' : 'more than'} ${f(min)} in around. Yours is ${f(p)} in around, ${by}.`;
+        const by = near(p, rule.minMm) ? 'exactly on the limit' : `${inch(rule.minMm - p)} in short`;
+        return { field: 'widthIn', message: `This category takes quilts ${rule.minInclusive ? 'at least' : 'more than'} ${inch(rule.minMm)} in around (perimeter); ${yours}, ${by}.` };
       }
     }
   }
   return null;
+}
+
+/** The same check for a size as she typed it; null while the size cannot be read. */
+export function sizeProblem(rule: SizeRule | undefined, size: QuiltSize | null): SizeProblem | null {
+  if (!size) return null;
+  return sizeProblemMm(rule, inchesToStoredMm(size.widthIn), inchesToStoredMm(size.heightIn));
+}
+
+/** Just the message of sizeProblem. */
+export function sizeWarning(rule: SizeRule | undefined, size: QuiltSize | null): string | null {
+  return sizeProblem(rule, size)?.message ?? null;
+}
+
+/**
+ * Names as the api keeps them: trimmed, inner spaces closed up, empty lines and repeats (ignoring
+ * case) left out. The api counts makers after this, so "Ann" twice is one maker.
+ */
+export function cleanMakers(makers: readonly (string | null | undefined)[]): string[] {
+  const seen = new Set<string>();
+  const out: string[] = [];
+  for (const name of makers.map((m) => (m ?? '').trim().replace(/\s+/g, ' ')).filter(Boolean)) {
+    if (seen.has(name.toLowerCase())) continue;
+    seen.add(name.toLowerCase());
+    out.push(name);
+  }
+  return out;
+}
+
+/** The api's refusal of too few makers for a group category, or null. */
+export function makersProblem(category: Pick<Category, 'name' | 'minMakers'> | undefined, makerCount: number): string | null {
+  if (!category || category.minMakers == null || makerCount >= category.minMakers) return null;
+  return `${category.name} is for quilts made by ${category.minMakers} or more people; this one names ${makerCount}.`;
 }
