@@ -1,6 +1,6 @@
 import * as yup from 'yup';
 import type { Category } from '../api/types';
-import { checkInches, inchesOrNull, inchesToStoredMm } from './inch-text';
+import { checkInches, inchesOrNull, inchesToStoredMm } from '@/lib/inches';
 import { mmToInchText } from './size-rule';
 
 export type RuleKind = 'none' | 'dimensions' | 'perimeter';

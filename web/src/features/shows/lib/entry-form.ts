@@ -2,7 +2,7 @@ import * as yup from 'yup';
 import { centsToInput, moneyToCents, parseMoney } from '@/features/dues/lib/money';
 import { moneyField } from '@/features/dues/lib/money-field';
 import type { Category, Entry } from '../api/types';
-import { checkInches } from './inch-text';
+import { checkInches } from '@/lib/inches';
 import { cleanMakers, makersProblem, readSize, sizeProblem } from './size-rule';
 
 /** The api's limits on an entry (EntryDto). */

@@ -1,8 +1,7 @@
 import * as yup from 'yup';
+import { checkInches, formatInches, inchesOrNull, inchesToStoredMm } from '@/lib/inches';
 import { centsToInput, parseMoney } from '@/features/dues/lib/money';
-import { formatInches } from '@/lib/inches';
 import type { RankedMethod, Show, VotingKind } from '../api/types';
-import { checkInches, inchesOrNull, inchesToStoredMm } from './inch-text';
 import { isoToLocalInput, localInputToIso } from './zoned-time';
 
 export type ShowValues = {

@@ -1,6 +1,5 @@
-import { formatInches } from '@/lib/inches';
+import { formatInches, inchesOrNull, inchesToStoredMm } from '@/lib/inches';
 import type { Category, SizeRule } from '../api/types';
-import { inchesOrNull, inchesToStoredMm } from './inch-text';
 
 export const MM_PER_INCH = 25.4;
 
