@@ -89,7 +89,8 @@ describe('quilt show: the viewer\'s choice ballot', () => {
 
     // Paper: the volunteer keys codes 6 and 7; code 1 (voted by phone) is refused as a duplicate.
     await chair.post(`${base}/voting/paper`).send({ code: codes[5].toLowerCase(), choices: { categories: { [medium]: [m[2]] } } }).expect(201);
-    await chair.post(`${base}/voting/paper`).send({ code: codes[6], choices: { categories: { [large]: [l[1]] } } }).expect(201);
+    const keyed = await chair.post(`${base}/voting/paper`).send({ code: codes[6], choices: { categories: { [large]: [l[1]] } } }).expect(201);
+    expect(keyed.body).toMatchObject({ ok: true, ballotsCast: 8 }); // 1 member, 5 phones, 2 paper
     const dupPaper = await chair.post(`${base}/voting/paper`).send({ code: codes[0], choices: { categories: { [medium]: [m[2]] } } }).expect(409);
     expect(dupPaper.body.message).toContain('already voted');
     await chair.post(`${base}/voting/paper`).send({ code: 'bad', choices: {} }).expect(400);

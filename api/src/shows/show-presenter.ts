@@ -67,7 +67,13 @@ export function presentSummary(show: Show, now = new Date()) {
   };
 }
 
-export function presentCategory(c: ShowCategory, acceptedCount = 0) {
+/** How many quilts a category holds: accepted ones, and entries of any status (a category with any cannot be deleted). */
+export interface CategoryCounts {
+  accepted: number;
+  entries: number;
+}
+
+export function presentCategory(c: ShowCategory, counts: CategoryCounts = { accepted: 0, entries: 0 }) {
   const rule = sizeRuleOf(c);
   return {
     id: c.id,
@@ -79,11 +85,12 @@ export function presentCategory(c: ShowCategory, acceptedCount = 0) {
     sizeRuleText: sizeRuleText(rule),
     minMakers: c.minMakers ?? null,
     maxEntriesPerMember: c.maxEntriesPerMember ?? null,
-    acceptedCount,
+    acceptedCount: counts.accepted,
+    entryCount: counts.entries,
   };
 }
 
-export function presentShow(show: Show, categories: ShowCategory[], extra: { canManage: boolean; myEntryCount: number; acceptedByCategory: Map<number, number> }) {
+export function presentShow(show: Show, categories: ShowCategory[], extra: { canManage: boolean; myEntryCount: number; countsByCategory: Map<number, CategoryCounts> }) {
   const sleeve = sleeveRuleOf(show);
   return {
     ...presentSummary(show),
@@ -103,7 +110,7 @@ export function presentShow(show: Show, categories: ShowCategory[], extra: { can
     votingClosedAt: show.votingClosedAt?.toISOString() ?? null,
     resultsPublishedAt: show.resultsPublishedAt?.toISOString() ?? null,
     makersHidden: show.makersHidden,
-    categories: categories.map((c) => presentCategory(c, extra.acceptedByCategory.get(c.id) ?? 0)),
+    categories: categories.map((c) => presentCategory(c, extra.countsByCategory.get(c.id))),
     canManage: extra.canManage,
     myEntryCount: extra.myEntryCount,
   };

@@ -49,15 +49,15 @@ export class ShowsService {
 
   async present(me: Membership, show: Show, em: EntityManager = this.em) {
     const categories = await this.categories(show, em);
-    const rows: { category_id: number; n: number }[] = await em.execute(
-      "SELECT category_id, COUNT(*) AS n FROM show_entries WHERE show_id = ? AND status = 'accepted' GROUP BY category_id",
+    const rows: { category_id: number; accepted: number | string; n: number | string }[] = await em.execute(
+      "SELECT category_id, SUM(status = 'accepted') AS accepted, COUNT(*) AS n FROM show_entries WHERE show_id = ? GROUP BY category_id",
       [show.id],
     );
     const mine = await em.count(ShowEntry, { show: show.id, membership: me.id, status: { $in: ['submitted', 'accepted'] } });
     return presentShow(show, categories, {
       canManage: isShowChair(me),
       myEntryCount: mine,
-      acceptedByCategory: new Map(rows.map((r) => [Number(r.category_id), Number(r.n)])),
+      countsByCategory: new Map(rows.map((r) => [Number(r.category_id), { accepted: Number(r.accepted), entries: Number(r.n) }])),
     });
   }
 
@@ -189,7 +189,8 @@ export class ShowsService {
       if (dto.sortOrder !== undefined) category.sortOrder = dto.sortOrder;
       await this.applyCategory(tx, category, dto);
       const accepted = await tx.count(ShowEntry, { category: category.id, status: 'accepted' });
-      return presentCategory(category, accepted);
+      const entries = await tx.count(ShowEntry, { category: category.id });
+      return presentCategory(category, { accepted, entries });
     });
     this.ballots.forget(showId);
     return saved;

@@ -208,7 +208,9 @@ export class VotingService {
     const duplicate = `Code ${formatBallotCode(code)} has already voted. Set this paper ballot aside as a duplicate.`;
     if (row.usedAt) throw new ConflictException(duplicate);
     const result = await this.cast(await this.definition(show), `code:${row.id}`, 'paper', row.id, choices, duplicate);
-    return { ...result, code: formatBallotCode(code) };
+    // The volunteer keying a stack of paper ballots sees the running total after each one.
+    const cast: { n: number | string }[] = await this.em.execute('SELECT COUNT(*) AS n FROM show_ballots WHERE show_id = ?', [show.id]);
+    return { ...result, code: formatBallotCode(code), ballotsCast: Number(cast[0].n) };
   }
 
   /**

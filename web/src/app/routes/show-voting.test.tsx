@@ -168,4 +168,37 @@ describe('Ballot desk', () => {
     await user.click(screen.getByRole('button', { name: 'Yes, publish them' }));
     expect(await screen.findByTestId('published')).toHaveTextContent('The results are published.');
   });
+
+  it('warns before publishing with a tie left to the ribbon rule, and once published shows ties without forms', async () => {
+    const tied: Results = {
+      show: { id: 2, name: 'Harvest Quilt Show', votingKind: 'per_category', rankedMethod: 'points', published: false, closedAt: '2026-10-04T21:00:00Z' },
+      audit: { codesIssued: 0, codesUsed: 0, memberBallots: 4, codeBallots: 0, paperBallots: 0, ballotsCast: 4, votesPerCategory: [], text: '4 ballots.' },
+      categories: [
+        {
+          categoryId: 11,
+          name: 'Small',
+          entryCount: 3,
+          ballots: 4,
+          blank: 0,
+          spoiled: 0,
+          standings: [
+            { entryId: 601, entryNumber: 1, title: 'Hedgerow Stars', makers: [], score: 2, rank: 1, ribbon: 1, byDecision: false },
+            { entryId: 602, entryNumber: 2, title: 'Kitchen Garden', makers: [], score: 2, rank: 1, ribbon: 1, byDecision: false },
+            { entryId: 603, entryNumber: 3, title: 'Quiet Lane', makers: [], score: 0, rank: 3, ribbon: null, byDecision: false },
+          ],
+          ties: [{ rank: 1, entryIds: [601, 602] }],
+          decisions: [],
+        },
+      ],
+    };
+    const { user, unmount } = renderDesk({ ...base('closed'), 'GET /api/guilds/1/shows/2/results': jsonResponse(200, tied) });
+    await user.click(await screen.findByRole('button', { name: 'Publish the results' }));
+    expect(screen.getByText(/1 tie is not settled by a decision: the tied quilts will share the place/)).toBeInTheDocument();
+    unmount();
+
+    renderDesk({ ...base('closed'), 'GET /api/guilds/1/shows/2/results': jsonResponse(200, { ...tied, show: { ...tied.show, published: true } }) });
+    expect(await screen.findByTestId('shared-place')).toHaveTextContent('Shared 1st place: No. 1, Hedgerow Stars and No. 2, Kitchen Garden.');
+    expect(screen.queryByRole('form', { name: 'Tie for 1st place in Small' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Publish the results' })).not.toBeInTheDocument();
+  });
 });

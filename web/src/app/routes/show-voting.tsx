@@ -11,7 +11,7 @@ import { useEntries } from '@/features/shows/api/get-entries';
 import { ballotsCsvHref, resultsCsvHref, resultsPdfHref } from '@/features/shows/api/downloads';
 import { usePublishResults, useRecordDecision, useRemoveDecision, useResults } from '@/features/shows/api/results';
 import { useTurnout } from '@/features/shows/api/get-turnout';
-import type { Show, VotingState } from '@/features/shows/api/types';
+import type { Results, Show, VotingState } from '@/features/shows/api/types';
 import { useSetVoting } from '@/features/shows/api/voting';
 import { CodesPanel } from '@/features/shows/components/codes-panel';
 import { PaperBallotForm } from '@/features/shows/components/paper-ballot-form';
@@ -86,6 +86,25 @@ function VotingControls({ show, state, timeZone, onSet, busy, error, waitingForR
           busy={busy}
           onConfirm={() => onSet('close')}
         />
+      )}
+    </>
+  );
+}
+
+/** Ties still standing for a ribbon: the default rule shares the place, unless the chair decides first. */
+function unsettledTies(results: Results): number {
+  return results.categories.reduce((n, c) => n + c.ties.length, 0);
+}
+
+function publishQuestion(ties: number) {
+  return (
+    <>
+      Publish the results now? Every member will be able to see them, and they can no longer change.
+      {ties > 0 && (
+        <strong className="d-block mt-2">
+          {ties === 1 ? '1 tie is' : `${ties} ties are`} not settled by a decision: the tied quilts will share the place under the guild’s ribbon
+          rule.
+        </strong>
       )}
     </>
   );
@@ -173,6 +192,17 @@ function DeskPage({ guild, show }: { guild: Guild; show: Show }) {
                   See the results
                 </Link>
               </p>
+              <h3 className="h4 mt-4">Ties</h3>
+              <TieDecisions
+                results={results.data}
+                timeZone={guild.timeZone}
+                published={results.data.show.published}
+                onDecide={(input) => decide.mutateAsync(input)}
+                onRemove={(decisionId) => removeDecision.mutateAsync(decisionId)}
+                busy={decide.isPending || removeDecision.isPending}
+                error={decide.error ?? removeDecision.error}
+              />
+              <h3 className="h4 mt-4">Publish</h3>
               <ErrorAlert error={publish.error} />
               {results.data.show.published ? (
                 <p className="fs-5" data-testid="published">
@@ -180,26 +210,17 @@ function DeskPage({ guild, show }: { guild: Guild; show: Show }) {
                 </p>
               ) : (
                 <div className="mb-3">
-                  <p>Settle any ties first. Once published, members see the results.</p>
+                  <p>To settle a tie by a decision, do it above before publishing: once published, the results cannot change.</p>
                   <ConfirmAction
                     label="Publish the results"
                     variant="primary"
-                    question="Publish the results now? Every member will be able to see them."
+                    question={publishQuestion(unsettledTies(results.data))}
                     confirmLabel="Yes, publish them"
                     busy={publish.isPending}
                     onConfirm={() => publish.mutateAsync()}
                   />
                 </div>
               )}
-              <h3 className="h4 mt-4">Ties</h3>
-              <TieDecisions
-                results={results.data}
-                timeZone={guild.timeZone}
-                onDecide={(input) => decide.mutateAsync(input)}
-                onRemove={(decisionId) => removeDecision.mutateAsync(decisionId)}
-                busy={decide.isPending || removeDecision.isPending}
-                error={decide.error ?? removeDecision.error}
-              />
               <h3 className="h4 mt-4">Downloads</h3>
               <ul className="plain-list d-flex flex-wrap column-gap-4">
                 <li>

@@ -18,6 +18,8 @@ export type Category = {
   minMakers: number | null;
   maxEntriesPerMember: number | null;
   acceptedCount: number;
+  /** Entries of any status; a category with any cannot be deleted. */
+  entryCount: number;
 };
 
 export type VotingKind = 'per_category' | 'approval' | 'ranked';

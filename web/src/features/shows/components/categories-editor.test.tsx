@@ -31,4 +31,14 @@ describe('CategoriesEditor', () => {
     await user.type(within(dialog).getByLabelText(/Fewest makers/), '51');
     expect(await within(dialog).findByText('Enter the least number of makers (2 to 50), or leave it empty.')).toBeInTheDocument();
   });
+
+  it('offers Delete only for a category without entries, and counts entries of every status', () => {
+    const withEntries = [{ ...categories[0], entryCount: 3, acceptedCount: 1 }, ...categories.slice(1)];
+    renderWithProviders(<CategoriesEditor categories={withEntries} onSave={vi.fn()} onDelete={vi.fn()} onAddMany={vi.fn()} />);
+    const rows = screen.getAllByRole('row').slice(1);
+    expect(within(rows[0]).getByTestId('cannot-delete')).toHaveTextContent('To delete it, first move its 3 entries to another category.');
+    expect(within(rows[0]).queryByRole('button', { name: /^Delete/ })).not.toBeInTheDocument();
+    expect(rows[0]).toHaveTextContent('3 (1 accepted)');
+    expect(within(rows[1]).getByRole('button', { name: /^Delete/ })).toBeInTheDocument();
+  });
 });

@@ -128,7 +128,7 @@ export function CategoriesEditor({ categories, onSave, onDelete, deleting, delet
               <th scope="col">Size</th>
               <th scope="col">Makers</th>
               <th scope="col">Quilts per member</th>
-              <th scope="col">Accepted</th>
+              <th scope="col">Entries</th>
               <th scope="col">
                 <span className="visually-hidden">Actions</span>
               </th>
@@ -146,24 +146,32 @@ export function CategoriesEditor({ categories, onSave, onDelete, deleting, delet
                 <td data-label="Size">{c.sizeRuleText}</td>
                 <td data-label="Makers">{c.minMakers != null && c.minMakers > 1 ? `At least ${c.minMakers}` : 'Any'}</td>
                 <td data-label="Quilts per member">{c.maxEntriesPerMember ?? 'No limit'}</td>
-                <td data-label="Accepted">{c.acceptedCount}</td>
+                <td data-label="Entries">
+                  {c.entryCount === c.acceptedCount ? c.entryCount : `${c.entryCount} (${c.acceptedCount} accepted)`}
+                </td>
                 <td data-label="Actions" className="no-label">
                   <div className="d-flex flex-wrap gap-2">
                     <Button variant="outline-primary" onClick={() => setEditing(c)}>
                       Change<span className="visually-hidden"> {c.name}</span>
                     </Button>
-                    <ConfirmAction
-                      label={
-                        <>
-                          Delete<span className="visually-hidden"> {c.name}</span>
-                        </>
-                      }
-                      question={`Delete the category ${c.name}? A category with entries cannot be deleted; move them first.`}
-                      confirmLabel="Yes, delete it"
-                      cancelLabel="Keep it"
-                      busy={deleting}
-                      onConfirm={() => onDelete(c)}
-                    />
+                    {c.entryCount > 0 ? (
+                      <p className="small mb-0 align-self-center" data-testid="cannot-delete">
+                        To delete it, first move its {c.entryCount === 1 ? 'entry' : `${c.entryCount} entries`} to another category.
+                      </p>
+                    ) : (
+                      <ConfirmAction
+                        label={
+                          <>
+                            Delete<span className="visually-hidden"> {c.name}</span>
+                          </>
+                        }
+                        question={`Delete the category ${c.name}?`}
+                        confirmLabel="Yes, delete it"
+                        cancelLabel="Keep it"
+                        busy={deleting}
+                        onConfirm={() => onDelete(c)}
+                      />
+                    )}
                   </div>
                 </td>
               </tr>

@@ -7,6 +7,11 @@ export function scoreLabel(kind: VotingKind, method: RankedMethod): string {
   return method === 'points' ? 'Points' : 'Votes in the last round';
 }
 
+/** A quilt nobody chose has no place to speak of (under instant runoff a 0 is only the last round, so it keeps its place). */
+function noVotes(results: Results, score: number): boolean {
+  return score === 0 && !(results.show.votingKind === 'ranked' && results.show.rankedMethod === 'instant_runoff');
+}
+
 /** A ribbon place in words, with a rosette beside it; its colour is never the only sign. */
 export function Ribbon({ place }: { place: 1 | 2 | 3 }) {
   return (
@@ -79,7 +84,7 @@ function CategoryResults({ category, results, timeZone }: { category: ResultCate
                   {s.title}
                 </th>
                 <td data-label="Place">
-                  {s.ribbon ? <Ribbon place={s.ribbon} /> : <>{ordinal(s.rank)}, no ribbon</>}
+                  {s.ribbon ? <Ribbon place={s.ribbon} /> : noVotes(results, s.score) ? <>No votes</> : <>{ordinal(s.rank)}, no ribbon</>}
                   {s.byDecision && <span className="d-block small">Placed by the show chair’s tie decision</span>}
                 </td>
                 <td data-label="Entry number">{entryNumberText(s.entryNumber) || '—'}</td>

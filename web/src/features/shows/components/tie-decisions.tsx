@@ -11,6 +11,8 @@ import { entryNumberText, ordinal } from '../lib/labels';
 type TieDecisionsProps = {
   results: Results;
   timeZone?: string;
+  /** Published results are final: ties and decisions are shown, not changed. */
+  published?: boolean;
   onDecide: (input: DecisionInput) => Promise<unknown>;
   onRemove: (decisionId: number) => Promise<unknown>;
   busy?: boolean;
@@ -115,32 +117,41 @@ function TieForm({ category, tie, onDecide, busy }: TieFormProps) {
 }
 
 /** Ties that touch a ribbon: the chair puts the tied quilts in order and says why; decisions can be taken back. */
-export function TieDecisions({ results, timeZone, onDecide, onRemove, busy, error }: TieDecisionsProps) {
+export function TieDecisions({ results, timeZone, published = false, onDecide, onRemove, busy, error }: TieDecisionsProps) {
   const relevant = results.categories.filter((c) => c.ties.length > 0 || c.decisions.length > 0);
   if (relevant.length === 0) return <p>No ties for a ribbon. Nothing to decide.</p>;
   return (
     <>
       <ErrorAlert error={error} />
+      {published && <p>The results are published, so ties and decisions stay as they are.</p>}
       {relevant.map((category) => (
         <div key={category.categoryId ?? 'overall'} className="mb-3">
           <h3 className="h5">{category.name}</h3>
-          {category.ties.map((tie) => (
-            <TieForm key={`${tie.rank}-${tie.entryIds.join('-')}`} category={category} tie={tie} onDecide={onDecide} busy={busy} />
-          ))}
+          {category.ties.map((tie) =>
+            published ? (
+              <p key={`${tie.rank}-${tie.entryIds.join('-')}`} data-testid="shared-place">
+                Shared {ordinal(tie.rank)} place: {tie.entryIds.map((entryId) => titleOf(category, entryId)).join(' and ')}.
+              </p>
+            ) : (
+              <TieForm key={`${tie.rank}-${tie.entryIds.join('-')}`} category={category} tie={tie} onDecide={onDecide} busy={busy} />
+            ),
+          )}
           {category.decisions.map((d) => (
             <div key={d.id} className="d-flex flex-wrap align-items-start gap-2 mb-2" data-testid="decision">
               <p className="mb-0 flex-grow-1 min-w-0">
                 Decided: {d.order.map((entryId) => titleOf(category, entryId)).join(', then ')}. “{d.note}” ({d.decidedBy},{' '}
                 {formatDateTime(d.decidedAt, timeZone)})
               </p>
-              <ConfirmAction
-                label="Remove this decision"
-                question="Remove this tie decision? The tie comes back and can be decided again."
-                confirmLabel="Yes, remove it"
-                cancelLabel="Keep it"
-                busy={busy}
-                onConfirm={() => onRemove(d.id)}
-              />
+              {!published && (
+                <ConfirmAction
+                  label="Remove this decision"
+                  question="Remove this tie decision? The tie comes back and can be decided again."
+                  confirmLabel="Yes, remove it"
+                  cancelLabel="Keep it"
+                  busy={busy}
+                  onConfirm={() => onRemove(d.id)}
+                />
+              )}
             </div>
           ))}
         </div>

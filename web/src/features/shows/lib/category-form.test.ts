@@ -90,6 +90,7 @@ describe('category form', () => {
       minMakers: null,
       maxEntriesPerMember: 2,
       acceptedCount: 0,
+      entryCount: 0,
     } as Category;
     expect(toCategoryValues(category)).toMatchObject({ minIn: '240', minInclusive: 'false', maxIn: '320', maxInclusive: 'true', maxEntriesPerMember: '2' });
   });

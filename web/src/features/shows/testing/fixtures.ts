@@ -17,6 +17,7 @@ export const categories: Category[] = [
     minMakers: null,
     maxEntriesPerMember: null,
     acceptedCount: 0,
+    entryCount: 0,
   },
   {
     id: 12,
@@ -29,6 +30,7 @@ export const categories: Category[] = [
     minMakers: null,
     maxEntriesPerMember: null,
     acceptedCount: 0,
+    entryCount: 0,
   },
   {
     id: 13,
@@ -41,6 +43,7 @@ export const categories: Category[] = [
     minMakers: 3,
     maxEntriesPerMember: 1,
     acceptedCount: 0,
+    entryCount: 0,
   },
 ];
 
