@@ -316,6 +316,12 @@ describe('quilt show: the viewer\'s choice ballot', () => {
 
     await chair.post(`${base}/voting/codes`).send({ count: 1 }).expect(201);
     const [code] = await codesOf(Number(base.split('/').pop()));
+    // The same code as a paper ballot to write on: its code and a box per category on the ballot.
+    const sheet = pdfText((await chair.get(`${base}/voting/codes.pdf?batch=1&layout=paper`).buffer(true).expect(200)).body as Buffer);
+    expect(sheet.replace(/\s+/g, ' ')).toContain(`${code.slice(0, 4)}-${code.slice(4, 8)}-${code.slice(8)}`);
+    expect(sheet).toContain('Medium bed quilts');
+    expect(sheet).toContain('Write the number of your favourite quilt in each category');
+    await chair.get(`${base}/voting/codes.pdf?batch=1&layout=poster`).expect(400);
     const visitor = client(t);
     await visitor.post(`/api/public/ballots/${code}`).send({ choices: { categories: { [medium]: [m[0]] } } }).expect(201);
     const again = await visitor.post(`/api/public/ballots/${code}`).send({ choices: { categories: { [medium]: [] } } }).expect(409);

@@ -7,7 +7,7 @@ import { centsToDecimalString, minorUnitDigits } from '../dues/money';
 import { formatDate, todayIn } from '../dues/dues-rules';
 import { Membership } from '../guilds/membership.entity';
 import { formatBallotCode } from './ballot-code';
-import { renderBallotCards, renderEntryList, renderHangTags, renderResults, statusLabel } from './pdf';
+import { renderBallotCards, renderEntryList, renderHangTags, renderPaperBallots, renderResults, statusLabel } from './pdf';
 import { sortEntries } from './show-entries.service';
 import type { ShowCategory } from './show-category.entity';
 import { ShowEntry } from './show-entry.entity';
@@ -128,6 +128,21 @@ export class ShowPrintsService {
       cards: codes.map((code) => ({ code: formatBallotCode(code), url: `${voteUrlBase}/${code}` })),
     });
     return { filename: `ballot-cards-${slug(show.name)}-batch-${batch}.pdf`, bytes };
+  }
+
+  /** The same batch's codes as half-page paper ballots, for visitors without a phone or a signal. */
+  async paperBallots(me: Membership, showId: number, batch: number): Promise<PrintedFile> {
+    const { show, codes } = await this.voting.batchCodes(me, showId, batch);
+    const categories = await this.shows.categories(show);
+    const bytes = await renderPaperBallots({
+      guildName: show.guild.name,
+      showName: show.name,
+      kind: show.votingKind,
+      rankDepth: show.rankDepth,
+      categories: categories.map((c) => c.name),
+      codes: codes.map((code) => formatBallotCode(code)),
+    });
+    return { filename: `paper-ballots-${slug(show.name)}-batch-${batch}.pdf`, bytes };
   }
 
   async resultsPdf(me: Membership, showId: number): Promise<PrintedFile> {

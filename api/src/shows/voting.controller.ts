@@ -30,8 +30,16 @@ export class VotingController {
 
   @Get('voting/codes.pdf')
   @Roles('show_chair')
-  async codesPdf(@CurrentMembership() me: Membership, @Param('showId', id()) showId: number, @Query('batch', new ParseIntPipe({ exceptionFactory: () => new BadRequestException('Choose a batch of cards: add ?batch=1 for the first.') })) batch: number, @Res() res: Response) {
-    sendFile(res, await this.prints.ballotCards(me, showId, batch), 'application/pdf');
+  async codesPdf(
+    @CurrentMembership() me: Membership,
+    @Param('showId', id()) showId: number,
+    @Query('batch', new ParseIntPipe({ exceptionFactory: () => new BadRequestException('Choose a batch of cards: add ?batch=1 for the first.') })) batch: number,
+    @Query('layout') layout: string | undefined,
+    @Res() res: Response,
+  ) {
+    if (layout !== undefined && layout !== 'cards' && layout !== 'paper') throw new BadRequestException('layout is cards (to scan) or paper (to write on).');
+    const file = layout === 'paper' ? await this.prints.paperBallots(me, showId, batch) : await this.prints.ballotCards(me, showId, batch);
+    sendFile(res, file, 'application/pdf');
   }
 
   @Get('results.pdf')

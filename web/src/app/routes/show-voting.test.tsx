@@ -41,6 +41,10 @@ describe('Ballot desk', () => {
     expect(figures).toHaveTextContent('Visitor codes used57');
     expect(screen.getByTestId('voting-state')).toHaveTextContent('Voting open now');
     expect(screen.getByRole('link', { name: 'Print batch 1 (300 cards, PDF)' })).toHaveAttribute('href', '/api/guilds/1/shows/2/voting/codes.pdf?batch=1');
+    expect(screen.getByRole('link', { name: 'The same codes as paper ballots (PDF)' })).toHaveAttribute(
+      'href',
+      '/api/guilds/1/shows/2/voting/codes.pdf?batch=1&layout=paper',
+    );
     expect(await screen.findByRole('form', { name: 'Record a paper ballot' })).toBeInTheDocument();
 
     expect(asked(fetchMock, '/results')).toBe(0);

@@ -172,7 +172,10 @@ function DeskPage({ guild, show }: { guild: Guild; show: Show }) {
         <Card as="section" aria-labelledby="paper-heading" className="mb-4">
           <Card.Body>
             <h2 id="paper-heading">Paper ballots</h2>
-            <p>Key in each paper ballot card: its code, then the choices marked on it. Each code counts once.</p>
+            <p>
+              For visitors without a phone, print a batch of codes as paper ballots (beside the batch above). Key in each one here: its code,
+              then the quilts written on it. Each code counts once.
+            </p>
             {ballot.isPending && <PageSpinner label="Loading the ballot" />}
             {ballot.isError && <ErrorAlert error={ballot.error} />}
             {ballot.data && <PaperBallotForm ballot={ballot.data} onRecord={(code, choices) => paper.mutateAsync({ code, choices })} />}

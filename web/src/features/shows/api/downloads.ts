@@ -7,9 +7,9 @@ export const hangTagsHref = (guildId: string, showId: string, hideMakers: boolea
 export const entriesPdfHref = (guildId: string, showId: string) => showHref(guildId, showId, '/entries.pdf');
 export const entriesCsvHref = (guildId: string, showId: string) => showHref(guildId, showId, '/entries.csv');
 
-/** Sheets of visitor ballot cards for one batch of codes. */
-export const codesPdfHref = (guildId: string, showId: string, batch: number) =>
-  showHref(guildId, showId, `/voting/codes.pdf?batch=${encodeURIComponent(String(batch))}`);
+/** One batch of codes as cards to scan, or as half-page paper ballots to write on. */
+export const codesPdfHref = (guildId: string, showId: string, batch: number, layout: 'cards' | 'paper' = 'cards') =>
+  showHref(guildId, showId, `/voting/codes.pdf?batch=${encodeURIComponent(String(batch))}${layout === 'paper' ? '&layout=paper' : ''}`);
 
 export const resultsCsvHref = (guildId: string, showId: string) => showHref(guildId, showId, '/results.csv');
 export const resultsPdfHref = (guildId: string, showId: string) => showHref(guildId, showId, '/results.pdf');

@@ -86,6 +86,9 @@ export function CodesPanel({ guildId, showId, batches, timeZone, onCreate, busy,
               <a href={codesPdfHref(guildId, showId, b.batch)} className="tap-link" download>
                 Print batch {b.batch} ({b.count} cards, PDF)
               </a>
+              <a href={codesPdfHref(guildId, showId, b.batch, 'paper')} className="tap-link" download>
+                The same codes as paper ballots (PDF)
+              </a>
               <span className="text-body-secondary">
                 {b.used} used · made {formatDateTime(b.createdAt, timeZone)}
               </span>
