@@ -58,8 +58,39 @@ describe('Show page', () => {
   it('links to published results', async () => {
     renderShow({ votingState: 'closed', resultsPublished: true, entryWindow: 'closed' });
     expect(await screen.findByRole('link', { name: 'See the results' })).toHaveAttribute('href', '/guilds/1/shows/2/results');
-    expect(screen.getByText('Entries are closed: voting has opened.')).toBeInTheDocument();
+    expect(screen.getByText('Entries are closed.')).toBeInTheDocument();
+    expect(screen.queryByText(/voting has opened/)).not.toBeInTheDocument();
     expect(screen.queryByRole('link', { name: 'Enter a quilt' })).not.toBeInTheDocument();
+  });
+
+  it('says entries are closed because voting has opened only while voting is open', async () => {
+    renderShow(
+      { votingState: 'open', entryWindow: 'closed' },
+      { 'GET /api/guilds/1/shows/2/ballot': jsonResponse(200, { hasVoted: false, show: {}, categories: [] }) },
+    );
+    expect(await screen.findByText('Entries are closed: voting has opened.')).toBeInTheDocument();
+  });
+
+  it('says entries are closed, and nothing of voting opening, once voting has closed', async () => {
+    renderShow({ votingState: 'closed', resultsPublished: false, entryWindow: 'closed' });
+    expect(await screen.findByText('Entries are closed.')).toBeInTheDocument();
+    expect(screen.queryByText(/voting has opened/)).not.toBeInTheDocument();
+  });
+
+  it('leaves out "Quilted by" when it was left blank', async () => {
+    renderShow(
+      {},
+      {
+        'GET /api/guilds/1/shows/2/entries/mine': jsonResponse(200, [
+          { ...entry, quilter: '' },
+          { ...entry, id: 502, title: 'Orchard Rows', quilter: 'Ada Pennock' },
+        ]),
+      },
+    );
+    const cards = await screen.findAllByTestId('my-entry');
+    expect(within(cards[0]).queryByText('Quilted by')).not.toBeInTheDocument();
+    expect(within(cards[1]).getByText('Quilted by')).toBeInTheDocument();
+    expect(cards[1]).toHaveTextContent('Quilted byAda Pennock');
   });
 
   it('uploads a photo she chose, after showing it', async () => {

@@ -73,7 +73,7 @@ function EnterButton({ guildId, show }: { guildId: string; show: Show }) {
       <p className="fs-5">
         {show.entryWindow === 'not_yet'
           ? `Entries are not open yet${show.entriesOpenOn ? `. They open on ${formatDay(show.entriesOpenOn)}` : ''}.`
-          : show.votingState === 'open' || show.votingState === 'closed'
+          : show.votingState === 'open'
             ? 'Entries are closed: voting has opened.'
             : 'Entries are closed.'}
       </p>

@@ -39,7 +39,7 @@ describe('Visitor voting', () => {
     });
     expect(await screen.findByRole('heading', { name: 'We could not open this ballot' })).toBeInTheDocument();
     expect(screen.getByTestId('ballot-problem')).toHaveTextContent('This ballot card has already been used. Each card votes once.');
-    expect(screen.getByRole('link', { name: 'Try another code' })).toHaveAttribute('href', '/vote');
+    expect(screen.getByRole('link', { name: 'Try another code' })).toHaveAttribute('href', '/vote?code=K7QM-3XHD-9PRW');
     // A refusal is not asked again.
     expect(fetchMock).toHaveBeenCalledTimes(1);
   });
@@ -74,7 +74,38 @@ describe('Visitor voting', () => {
     await user.click(await screen.findByRole('button', { name: 'Cast my ballot' }));
     const problem = await screen.findByTestId('cast-error');
     expect(problem).toHaveTextContent('Voting has closed. Thank you for coming.');
-    expect(within(problem).getByRole('link', { name: 'Try another code' })).toHaveAttribute('href', '/vote');
+    expect(within(problem).getByRole('link', { name: 'Try another code' })).toHaveAttribute('href', '/vote?code=K7QM-3XHD-9PRW');
     await waitFor(() => expect(screen.getByRole('button', { name: 'Cast my ballot' })).toBeEnabled());
+  });
+
+  it('says how long a ballot code is before sending a short one', async () => {
+    mockFetch({});
+    const { user, router } = renderWithProviders(<VoteRoute />, {
+      path: '/vote',
+      route: '/vote',
+      routes: [{ path: '/vote/:code', element: <p>Ballot</p> }],
+    });
+    const box = screen.getByLabelText('Type the code from your ballot card');
+    await user.type(box, 'xtxn-ggwb');
+    await user.click(screen.getByRole('button', { name: 'Open my ballot' }));
+    expect(box).toHaveAccessibleDescription(/That is 8 letters and digits; a ballot code has 12, like K7QM-3XHD-9PRW\./);
+    expect(box).toHaveFocus();
+    expect(router.state.location.pathname).toBe('/vote');
+  });
+
+  it('shows the code she typed when it is refused, and brings it back in the box to mend', async () => {
+    mockFetch({
+      'GET /api/public/ballots/XTXNGGWB9PRW': jsonResponse(404, { statusCode: 404, message: 'We do not know that code. Check it against your card.' }),
+    });
+    const { user } = renderWithProviders(<VoteBallotRoute />, {
+      path: '/vote/:code',
+      route: '/vote/XTXNGGWB9PRW',
+      routes: [{ path: '/vote', element: <VoteRoute /> }],
+    });
+    expect(await screen.findByTestId('typed-code')).toHaveTextContent('You typed XTXN-GGWB-9PRW.');
+    await user.click(screen.getByRole('link', { name: 'Try another code' }));
+    const box = await screen.findByLabelText('Type the code from your ballot card');
+    expect(box).toHaveValue('XTXN-GGWB-9PRW');
+    await waitFor(() => expect(box).toHaveFocus());
   });
 });

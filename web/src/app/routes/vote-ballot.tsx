@@ -10,9 +10,11 @@ import { formatBallotCode, normaliseBallotCode } from '@/features/shows/lib/ball
 import { showPaths } from '@/features/shows/lib/paths';
 import { formatDateTime } from '@/lib/dates';
 
-function TryAnother() {
+/** Back to the code box with her code still in it, to mend a letter rather than type all 12 again. */
+function TryAnother({ code }: { code: string }) {
+  const href = `${showPaths.visitorVote.getHref()}?${new URLSearchParams({ code: formatBallotCode(code) })}`;
   return (
-    <Link to={showPaths.visitorVote.getHref()} className="tap-link">
+    <Link to={href} className="tap-link">
       Try another code
     </Link>
   );
@@ -44,7 +46,10 @@ export default function VoteBallotRoute() {
         <p className="fs-5" data-testid="ballot-problem">
           {errorMessage(ballot.error)}
         </p>
-        <TryAnother />
+        <p className="fs-5" data-testid="typed-code">
+          You typed <strong className="code-input">{formatBallotCode(code)}</strong>.
+        </p>
+        <TryAnother code={code} />
       </>
     );
   } else {
@@ -69,14 +74,14 @@ export default function VoteBallotRoute() {
             }}
             errorExtra={() => (
               <p className="mb-0 mt-2">
-                <TryAnother />
+                <TryAnother code={code} />
               </p>
             )}
           />
         ) : (
           <>
             <p className="fs-5">{data.show.votingState === 'closed' ? 'Voting has closed. Thank you for coming.' : 'Voting is not open yet.'}</p>
-            <TryAnother />
+            <TryAnother code={code} />
           </>
         )}
       </>

@@ -1,24 +1,41 @@
-import { useState, type FormEvent } from 'react';
+import { useEffect, useRef, useState, type FormEvent } from 'react';
 import Button from 'react-bootstrap/Button';
 import Form from 'react-bootstrap/Form';
-import { useNavigate } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
 import { CentredLayout } from '@/components/layouts/centred-layout';
 import { usePageTitle } from '@/components/ui/page-title';
-import { normaliseBallotCode } from '@/features/shows/lib/ballot-code';
+import { BALLOT_CODE_LENGTH, normaliseBallotCode } from '@/features/shows/lib/ballot-code';
 import { showPaths } from '@/features/shows/lib/paths';
 
 /** Visitors at a show: type the code from the ballot card (no account needed). */
 export default function VoteRoute() {
   const navigate = useNavigate();
-  const [code, setCode] = useState('');
+  // "Try another code" brings back what she typed, so a wrong letter is mended, not all 12 typed again.
+  const [params] = useSearchParams();
+  const typed = params.get('code') ?? '';
+  const [code, setCode] = useState(typed);
   const [problem, setProblem] = useState('');
+  const inputRef = useRef<HTMLInputElement>(null);
   usePageTitle('Vote for your favourite quilt');
+
+  useEffect(() => {
+    const input = inputRef.current;
+    if (!typed || !input) return;
+    input.focus();
+    input.setSelectionRange(input.value.length, input.value.length);
+  }, [typed]);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
     const normalised = normaliseBallotCode(code);
     if (!normalised) {
       setProblem('Type the code printed on your ballot card.');
+      return;
+    }
+    if (normalised.length !== BALLOT_CODE_LENGTH) {
+      const what = normalised.length === 1 ? 'letter or digit' : 'letters and digits';
+      setProblem(`That is ${normalised.length} ${what}; a ballot code has ${BALLOT_CODE_LENGTH}, like K7QM-3XHD-9PRW.`);
+      inputRef.current?.focus();
       return;
     }
     navigate(showPaths.visitorBallot.getHref(normalised));
@@ -32,6 +49,7 @@ export default function VoteRoute() {
         <Form.Group controlId="ballot-code" className="mb-3">
           <Form.Label className="fs-5">Type the code from your ballot card</Form.Label>
           <Form.Control
+            ref={inputRef}
             size="lg"
             value={code}
             onChange={(e) => setCode(e.currentTarget.value)}

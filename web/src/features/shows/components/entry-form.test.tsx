@@ -1,4 +1,4 @@
-import { screen, waitFor } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
 import { renderWithProviders } from '@/testing/test-utils';
 import { entry, show } from '../testing/fixtures';
@@ -8,6 +8,11 @@ function renderForm() {
   const onCreate = vi.fn().mockResolvedValue(entry);
   const utils = renderWithProviders(
     <EntryForm guildId="1" show={show} makerName="Marigold Fenwick" onCreate={onCreate} onUpdate={vi.fn()} onSaved={vi.fn()} />,
+    {
+      path: '/guilds/:guildId/shows/:showId/enter',
+      route: '/guilds/1/shows/2/enter',
+      routes: [{ path: '/guilds/:guildId/shows/:showId', element: <p>The show page</p> }],
+    },
   );
   return { ...utils, onCreate };
 }
@@ -75,5 +80,51 @@ describe('EntryForm', () => {
     await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
     await waitFor(() => expect(onCreate).toHaveBeenCalled());
     expect(onCreate.mock.calls[0][0]).not.toHaveProperty('quilter');
+  });
+
+  it('says once, under the makers, that a group quilt needs more of them, without marking her own name wrong', async () => {
+    const { user, onCreate } = renderForm();
+    await user.selectOptions(screen.getByLabelText('Category'), 'Group quilts');
+    await user.type(screen.getByLabelText('Title of the quilt'), 'Guild Friendship Medallion');
+    await user.type(screen.getByLabelText('Width (inches)'), '80');
+    await user.type(screen.getByLabelText('Height (inches)'), '80');
+    await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
+    const message = 'Group quilts is for quilts made by 3 or more people; this one names 1. Add the other makers.';
+    expect(await screen.findByTestId('makers-error')).toHaveTextContent(message);
+    expect(screen.getAllByText(message)).toHaveLength(1);
+    // The list's message is a string: read per maker it gave the stray letter "G".
+    expect(screen.queryByText('G')).not.toBeInTheDocument();
+    const maker1 = screen.getByLabelText('Maker 1');
+    expect(maker1).not.toHaveAttribute('aria-invalid');
+    expect(maker1).not.toHaveClass('is-invalid');
+    await waitFor(() => expect(screen.getByRole('group', { name: 'Who made it' })).toHaveFocus());
+    expect(screen.getByRole('group', { name: 'Who made it' })).toHaveAccessibleDescription(message);
+    expect(onCreate).not.toHaveBeenCalled();
+
+    // A maker's own problem still shows under her box.
+    await user.click(screen.getByRole('button', { name: 'Add another maker' }));
+    await user.click(screen.getByRole('button', { name: 'Enter this quilt' }));
+    await waitFor(() => expect(screen.getByLabelText('Maker 2')).toHaveAttribute('aria-invalid', 'true'));
+    expect(screen.getByLabelText('Maker 2')).toHaveAccessibleDescription('Type the maker’s name, or remove this line.');
+    expect(screen.getByLabelText('Maker 1')).not.toHaveAttribute('aria-invalid');
+  });
+
+  it('asks before Cancel throws away what she typed', async () => {
+    const { user, router } = renderForm();
+    await user.type(screen.getByLabelText('Title of the quilt'), 'Mill Pond at Dusk');
+    await user.click(screen.getByRole('button', { name: 'Cancel' }));
+    const question = screen.getByRole('group', { name: 'Leave without entering this quilt? What you typed will be lost.' });
+    expect(router.state.location.pathname).toBe('/guilds/1/shows/2/enter');
+    await user.click(within(question).getByRole('button', { name: 'Keep typing' }));
+    expect(screen.getByLabelText('Title of the quilt')).toHaveValue('Mill Pond at Dusk');
+    await user.click(screen.getByRole('button', { name: 'Cancel' }));
+    await user.click(screen.getByRole('button', { name: 'Yes, leave' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/guilds/1/shows/2'));
+  });
+
+  it('leaves at once on Cancel when nothing was typed', async () => {
+    const { user, router } = renderForm();
+    await user.click(screen.getByRole('link', { name: 'Cancel' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/guilds/1/shows/2'));
   });
 });

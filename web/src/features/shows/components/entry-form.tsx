@@ -1,9 +1,11 @@
-import { FieldArray, Form, Formik, getIn, useFormikContext } from 'formik';
+import { FieldArray, Form, Formik, getIn, useField, useFormikContext } from 'formik';
 import { useEffect, useId, useRef } from 'react';
 import Button from 'react-bootstrap/Button';
 import Col from 'react-bootstrap/Col';
+import BsForm from 'react-bootstrap/Form';
 import Row from 'react-bootstrap/Row';
-import { Link } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
+import { ConfirmAction } from '@/components/ui/confirm-action';
 import { CheckboxField, SelectField, TextareaField, TextField } from '@/components/ui/form-fields';
 import { FormAlert } from '@/components/ui/form-alert';
 import { applyServerErrors } from '@/components/ui/server-errors';
@@ -86,6 +88,39 @@ function FollowEntrant({ members, makerName }: { members: OnBehalfMember[]; make
   return null;
 }
 
+/**
+ * One maker's box. Not a TextField: when the list as a whole is refused, Formik's error for
+ * "makers" is a single string, and reading "makers.0" from it gives its first letter.
+ */
+function MakerField({ index }: { index: number }) {
+  const id = useId();
+  const name = `makers.${index}`;
+  const [field, meta] = useField<string>(name);
+  const { errors, submitCount } = useFormikContext<EntryValues>();
+  const own = Array.isArray(errors.makers) ? errors.makers[index] : undefined;
+  const error = own && (meta.touched || submitCount > 0) ? String(own) : undefined;
+  const errorId = error ? `${id}-error` : undefined;
+  return (
+    <BsForm.Group className="mb-3" controlId={id}>
+      <BsForm.Label>Maker {index + 1}</BsForm.Label>
+      <BsForm.Control
+        {...field}
+        value={field.value ?? ''}
+        autoComplete="off"
+        aria-required
+        isInvalid={Boolean(error)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={errorId}
+      />
+      {error && (
+        <BsForm.Control.Feedback type="invalid" id={errorId}>
+          {error}
+        </BsForm.Control.Feedback>
+      )}
+    </BsForm.Group>
+  );
+}
+
 function MakersField() {
   const { values, errors, submitCount, touched } = useFormikContext<EntryValues>();
   const listRef = useRef<HTMLDivElement>(null);
@@ -102,7 +137,13 @@ function MakersField() {
   }, [count]);
 
   return (
-    <fieldset className="form-section" aria-describedby={groupError ? errorId : undefined}>
+    // With a message for the whole list, the fieldset is where the form's focus-on-error lands
+    // (it looks for .is-invalid), so she hears the question and its message, not one box.
+    <fieldset
+      className={groupError ? 'form-section is-invalid' : 'form-section'}
+      tabIndex={groupError ? -1 : undefined}
+      aria-describedby={groupError ? errorId : undefined}
+    >
       <legend className="h5">Who made it</legend>
       <p className="text-body-secondary">Everyone who pieced or appliquéd the top. Add a line for each person.</p>
       <FieldArray name="makers">
@@ -111,7 +152,7 @@ function MakersField() {
             {values.makers.map((_maker, i) => (
               <div key={i} className="maker-row d-flex align-items-end gap-2">
                 <div className="flex-grow-1 min-w-0">
-                  <TextField name={`makers.${i}`} label={`Maker ${i + 1}`} autoComplete="off" />
+                  <MakerField index={i} />
                 </div>
                 {count > 1 && (
                   <Button variant="outline-danger" className="mb-3" onClick={() => remove(i)}>
@@ -153,6 +194,28 @@ function StoryHelp({ length }: { length: number }) {
       {over > 0 ? `${length} of ${STORY_MAX} characters: ${over} too many.` : `${length} of ${STORY_MAX} characters.`} The show chair
       keeps it with your entry, to read out or show beside your quilt.
     </span>
+  );
+}
+
+/** Cancel leaves at once when nothing was typed; otherwise it asks first, as the typing would be lost. */
+function CancelEntry({ href, editing }: { href: string; editing: boolean }) {
+  const { dirty } = useFormikContext<EntryValues>();
+  const navigate = useNavigate();
+  if (!dirty)
+    return (
+      <Link to={href} className="btn btn-outline-secondary">
+        Cancel
+      </Link>
+    );
+  return (
+    <ConfirmAction
+      label="Cancel"
+      question={`Leave without ${editing ? 'saving the changes' : 'entering this quilt'}? What you typed will be lost.`}
+      confirmLabel="Yes, leave"
+      cancelLabel="Keep typing"
+      variant="outline-secondary"
+      onConfirm={() => navigate(href)}
+    />
   );
 }
 
@@ -258,9 +321,7 @@ export function EntryForm({ guildId, show, entry, makerName, members, onCreate, 
             )}
             <div className="d-flex flex-wrap gap-2 align-items-center">
               <SubmitButton busyLabel="Sending">{editing ? 'Save the changes' : 'Enter this quilt'}</SubmitButton>
-              <Link to={showPaths.show.getHref(guildId, show.id)} className="btn btn-outline-secondary">
-                Cancel
-              </Link>
+              <CancelEntry href={showPaths.show.getHref(guildId, show.id)} editing={editing} />
             </div>
           </Form>
         );

@@ -11,6 +11,9 @@ type EntryPhotoUploadProps = {
   onUpload: (photo: Blob) => Promise<unknown>;
 };
 
+/** Bad request, too large, not a type it takes, cannot be read. */
+const FILE_REFUSALS = [400, 413, 415, 422];
+
 const objectUrl = (file: Blob | null) =>
   file && typeof URL !== 'undefined' && typeof URL.createObjectURL === 'function' ? URL.createObjectURL(file) : null;
 
@@ -49,6 +52,13 @@ export function EntryPhotoUpload({ title, hasPhoto, onUpload }: EntryPhotoUpload
     setPhoto(file);
   };
 
+  /** A refused file is let go, so only the refusal stays and the picker takes a new one. */
+  const drop = (message: string) => {
+    setPhoto(null);
+    setProblem(message);
+    if (inputRef.current) inputRef.current.value = '';
+  };
+
   const submit = async (event: FormEvent) => {
     event.preventDefault();
     setDone('');
@@ -65,8 +75,15 @@ export function EntryPhotoUpload({ title, hasPhoto, onUpload }: EntryPhotoUpload
       if (inputRef.current) inputRef.current.value = '';
       setDone('The photo is saved.');
     } catch (error) {
-      if (isApiError(error)) setProblem([...(error.errors.photo ?? []), ...(error.errors.photo ? [] : [error.message])].join(' '));
-      else setProblem('Something went wrong. Please try again.');
+      if (!isApiError(error)) setProblem('Something went wrong. Please try again.');
+      else {
+        const message = [...(error.errors.photo ?? []), ...(error.errors.photo ? [] : [error.message])].join(' ');
+        // Refused for what the file is: it is let go. Anything else (busy, signed out, a fault) may pass, so it stays to send again.
+        if (error.errors.photo || FILE_REFUSALS.includes(error.status)) {
+          drop(message);
+          inputRef.current?.focus();
+        } else setProblem(message);
+      }
     } finally {
       setBusy(false);
     }
@@ -90,7 +107,11 @@ export function EntryPhotoUpload({ title, hasPhoto, onUpload }: EntryPhotoUpload
       </Form.Group>
       {preview && photo && (
         <figure className="entry-photo photo-preview mb-2">
-          <img src={preview} alt={`The photo you chose of ${title}`} />
+          <img
+            src={preview}
+            alt={`The photo you chose of ${title}`}
+            onError={() => drop('That file is not a photo Selvage can read. Choose a JPEG or PNG picture.')}
+          />
           <figcaption className="text-body-secondary">Not sent yet. Press “Upload the photo”.</figcaption>
         </figure>
       )}

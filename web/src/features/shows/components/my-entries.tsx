@@ -82,10 +82,12 @@ export function MyEntries({ guildId, showId, entries, currency, onWithdraw, with
                     <dt>Made by</dt>
                     <dd>{joinNames(entry.makers)}</dd>
                   </div>
-                  <div>
-                    <dt>Quilted by</dt>
-                    <dd>{entry.quilter}</dd>
-                  </div>
+                  {entry.quilter.trim() && (
+                    <div>
+                      <dt>Quilted by</dt>
+                      <dd>{entry.quilter}</dd>
+                    </div>
+                  )}
                   {entry.forSale && (
                     <div>
                       <dt>For sale</dt>

@@ -58,4 +58,28 @@ describe('ShowForm', () => {
     await waitFor(() => expect(onSave).toHaveBeenCalled());
     expect(onSave.mock.calls[0][0]).not.toHaveProperty('votingOpensAt');
   });
+
+  it('refuses an opening time already past before sending, and moves to the first field to mend', async () => {
+    const { user, onSave } = renderForm({ ...show, canManage: true, votingState: 'not_open' });
+    await user.type(screen.getByLabelText(/Voting opens/), '2020-03-01T09:00');
+    await user.type(screen.getByLabelText(/Voting closes/), '2020-02-28T09:00');
+    await user.click(screen.getByRole('button', { name: 'Save the show' }));
+    const opens = screen.getByLabelText(/Voting opens/);
+    await waitFor(() => expect(opens).toHaveAccessibleDescription('Choose an opening time in the future, or open voting now from the ballot desk.'));
+    expect(screen.getByLabelText(/Voting closes/)).toHaveAccessibleDescription('Voting must close after it opens.');
+    await waitFor(() => expect(opens).toHaveFocus());
+    expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('moves to the first of several mistakes, far up the form, after a refused save', async () => {
+    const { user, onSave } = renderForm({ ...show, canManage: true });
+    await user.clear(screen.getByLabelText('Name of the show'));
+    await user.clear(screen.getByLabelText(/Sleeve depth \(inches\)/));
+    await user.type(screen.getByLabelText(/Voting opens/), '2020-03-01T09:00');
+    await user.click(screen.getByRole('button', { name: 'Save the show' }));
+    expect(await screen.findByText('Give the show a name.')).toBeInTheDocument();
+    await waitFor(() => expect(screen.getByLabelText('Name of the show')).toHaveFocus());
+    expect(screen.getByText('Choose an opening time in the future, or open voting now from the ballot desk.')).toBeInTheDocument();
+    expect(onSave).not.toHaveBeenCalled();
+  });
 });

@@ -7,7 +7,17 @@ import { applyServerErrors } from '@/components/ui/server-errors';
 import { SubmitButton } from '@/components/ui/submit-button';
 import type { Show } from '../api/types';
 import { RANKED_METHOD_OPTIONS, VOTING_KIND_OPTIONS } from '../lib/labels';
-import { isVotingLocked, NEW_SHOW_VALUES, SHOW_FIELD_MAP, showSchema, toShowInput, toShowValues, type ShowInput, type ShowValues } from '../lib/show-form';
+import {
+  isVotingLocked,
+  NEW_SHOW_VALUES,
+  sendsOpeningTime,
+  SHOW_FIELD_MAP,
+  showSchema,
+  toShowInput,
+  toShowValues,
+  type ShowInput,
+  type ShowValues,
+} from '../lib/show-form';
 import { SwitchField } from './switch-field';
 
 type ShowFormProps = {
@@ -27,7 +37,7 @@ export function ShowForm({ show, currency, timeZone, onSave, onSaved }: ShowForm
   return (
     <Formik<ShowValues>
       initialValues={show ? toShowValues(show, timeZone) : NEW_SHOW_VALUES}
-      validationSchema={showSchema(currency)}
+      validationSchema={showSchema(currency, { checkOpening: sendsOpeningTime(create, show?.votingState), timeZone })}
       onSubmit={async (values, helpers) => {
         helpers.setStatus(undefined);
         try {

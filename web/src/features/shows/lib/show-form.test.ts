@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Show } from '../api/types';
-import { isVotingLocked, NEW_SHOW_VALUES, showSchema, toShowInput, toShowValues, type ShowValues } from './show-form';
+import { isVotingLocked, NEW_SHOW_VALUES, sendsOpeningTime, showSchema, toShowInput, toShowValues, type ShowValues } from './show-form';
 
 const values: ShowValues = {
   ...NEW_SHOW_VALUES,
@@ -22,6 +22,23 @@ const problems = async (v: ShowValues) => {
 };
 
 describe('show form', () => {
+  it('holds an opening time that will be sent to the future, in the api’s words', async () => {
+    const past = { ...values, votingOpensAt: '2020-03-01T09:00' };
+    const future = { ...values, votingOpensAt: '2999-03-01T09:00' };
+    const check = (v: ShowValues, checkOpening: boolean) =>
+      showSchema('USD', { checkOpening, timeZone: 'America/Chicago' })
+        .validate(v, { abortEarly: false })
+        .then(() => [], (error: { errors: string[] }) => error.errors);
+    expect(await check(past, true)).toEqual(['Choose an opening time in the future, or open voting now from the ballot desk.']);
+    expect(await check(future, true)).toEqual([]);
+    // Not sent once voting is open or closed (nor for a new show), so not checked.
+    expect(await check(past, false)).toEqual([]);
+    expect(sendsOpeningTime(false, 'not_open')).toBe(true);
+    expect(sendsOpeningTime(false, 'open')).toBe(false);
+    expect(sendsOpeningTime(false, 'closed')).toBe(false);
+    expect(sendsOpeningTime(true, undefined)).toBe(false);
+  });
+
   it('sends a new show without the empty optional fields, the sleeve as inch text and the fee in cents', () => {
     expect(toShowInput(values, 'USD', { create: true })).toEqual({
       name: 'Harvest Quilt Show',

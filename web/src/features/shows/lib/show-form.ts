@@ -157,7 +157,17 @@ const dateField = (required?: string) => {
   return required ? base.required(required) : base;
 };
 
-export const showSchema = (currency: string) =>
+/** The opening time goes to the api only for a saved show whose voting has not opened: before that it waits, after it is history. */
+export const sendsOpeningTime = (create: boolean, votingState: Show['votingState'] | undefined) =>
+  !create && votingState !== 'open' && votingState !== 'closed';
+
+type SchemaOptions = {
+  /** The opening time will be sent (see sendsOpeningTime), so the api will hold it to the future. */
+  checkOpening?: boolean;
+  timeZone?: string;
+};
+
+export const showSchema = (currency: string, { checkOpening = false, timeZone }: SchemaOptions = {}) =>
   yup.object({
     name: yup.string().trim().required('Give the show a name.').max(SHOW_NAME_MAX, 'Use at most 120 characters.'),
     venue: yup.string().trim().required('Say where the show is.').max(VENUE_MAX, 'Use at most 200 characters.'),
@@ -217,7 +227,12 @@ export const showSchema = (currency: string) =>
       const n = blank(value as string) ? NaN : Number(value);
       return Number.isInteger(n) && n >= 2 && n <= 5;
     }),
-    votingOpensAt: yup.string(),
+    votingOpensAt: yup.string().test('future', 'Choose an opening time in the future, or open voting now from the ballot desk.', (value) => {
+      if (!checkOpening || blank(value)) return true;
+      const iso = localInputToIso(String(value), timeZone);
+      // A time already past would open voting at once, so the api refuses it.
+      return !iso || Date.parse(iso) > Date.now();
+    }),
     votingClosesAt: yup
       .string()
       .test('after-opening', 'Voting must close after it opens.', (value, context) => !value || !context.parent.votingOpensAt || value > context.parent.votingOpensAt),
@@ -262,7 +277,7 @@ export function toShowInput(values: ShowValues, currency: string, { create, voti
   }
   if (!create) {
     // The api refuses any opening time once voting is open, and any time at all once it has closed.
-    if (votingState !== 'open' && votingState !== 'closed')
+    if (sendsOpeningTime(create, votingState))
       input.votingOpensAt = blank(values.votingOpensAt) ? null : localInputToIso(values.votingOpensAt, timeZone);
     if (votingState !== 'closed')
       input.votingClosesAt = blank(values.votingClosesAt) ? null : localInputToIso(values.votingClosesAt, timeZone);
