@@ -111,11 +111,16 @@ test('the show chair accepts an entry, opens voting and prints visitor ballot ca
   await cards.getByRole('button', { name: 'Make the codes' }).click();
   const batch = page.getByTestId('code-batch').first();
   await expect(batch).toContainText('10 cards');
-  const href = await batch.getByRole('link').getAttribute('href');
+  const href = await batch.getByRole('link', { name: /^Print batch/ }).getAttribute('href');
   const pdf = await page.request.get(href!);
   expect(pdf.headers()['content-type']).toBe('application/pdf');
   const codes = codesIn(await pdf.body());
   expect(codes).toHaveLength(10);
+  // The same codes as paper ballots to write on, for visitors without a phone.
+  const paperHref = await batch.getByRole('link', { name: 'The same codes as paper ballots (PDF)' }).getAttribute('href');
+  const paper = await page.request.get(paperHref!);
+  expect(paper.headers()['content-type']).toBe('application/pdf');
+  expect(codesIn(await paper.body())).toEqual(codes);
   visitorCode = codes[0];
   await expect(page.getByTestId('turnout')).toBeVisible();
   await shootBothWidths(page, 'show-ballot-desk-open');
