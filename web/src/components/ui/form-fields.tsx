@@ -2,10 +2,25 @@ import { useField, useFormikContext } from 'formik';
 import { useId, type ReactNode } from 'react';
 import Form from 'react-bootstrap/Form';
 
+/**
+ * The message for this field alone. Formik reads "makers.0" out of a list-wide message such as
+ * "Add the other makers." as its first letter; a message met before the end of the path belongs to
+ * the list, which shows it once, so the field has none.
+ */
+export function ownError(errors: unknown, name: string): string | undefined {
+  let at: unknown = errors;
+  for (const part of name.split('.')) {
+    if (at === null || typeof at !== 'object') return undefined;
+    at = (at as Record<string, unknown>)[part];
+  }
+  return typeof at === 'string' ? at : undefined;
+}
+
 function useFieldState(name: string) {
   const [field, meta, helpers] = useField(name);
-  const { submitCount } = useFormikContext();
-  const error = meta.error && (meta.touched || submitCount > 0) ? String(meta.error) : undefined;
+  const { submitCount, errors } = useFormikContext();
+  const own = ownError(errors, name);
+  const error = own && (meta.touched || submitCount > 0) ? own : undefined;
   return { field, meta, helpers, error };
 }
 

@@ -1,8 +1,7 @@
-import { FieldArray, Form, Formik, getIn, useField, useFormikContext } from 'formik';
+import { FieldArray, Form, Formik, getIn, useFormikContext } from 'formik';
 import { useEffect, useId, useRef } from 'react';
 import Button from 'react-bootstrap/Button';
 import Col from 'react-bootstrap/Col';
-import BsForm from 'react-bootstrap/Form';
 import Row from 'react-bootstrap/Row';
 import { Link, useNavigate } from 'react-router-dom';
 import { ConfirmAction } from '@/components/ui/confirm-action';
@@ -88,39 +87,6 @@ function FollowEntrant({ members, makerName }: { members: OnBehalfMember[]; make
   return null;
 }
 
-/**
- * One maker's box. Not a TextField: when the list as a whole is refused, Formik's error for
- * "makers" is a single string, and reading "makers.0" from it gives its first letter.
- */
-function MakerField({ index }: { index: number }) {
-  const id = useId();
-  const name = `makers.${index}`;
-  const [field, meta] = useField<string>(name);
-  const { errors, submitCount } = useFormikContext<EntryValues>();
-  const own = Array.isArray(errors.makers) ? errors.makers[index] : undefined;
-  const error = own && (meta.touched || submitCount > 0) ? String(own) : undefined;
-  const errorId = error ? `${id}-error` : undefined;
-  return (
-    <BsForm.Group className="mb-3" controlId={id}>
-      <BsForm.Label>Maker {index + 1}</BsForm.Label>
-      <BsForm.Control
-        {...field}
-        value={field.value ?? ''}
-        autoComplete="off"
-        aria-required
-        isInvalid={Boolean(error)}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={errorId}
-      />
-      {error && (
-        <BsForm.Control.Feedback type="invalid" id={errorId}>
-          {error}
-        </BsForm.Control.Feedback>
-      )}
-    </BsForm.Group>
-  );
-}
-
 function MakersField() {
   const { values, errors, submitCount, touched } = useFormikContext<EntryValues>();
   const listRef = useRef<HTMLDivElement>(null);
@@ -152,7 +118,7 @@ function MakersField() {
             {values.makers.map((_maker, i) => (
               <div key={i} className="maker-row d-flex align-items-end gap-2">
                 <div className="flex-grow-1 min-w-0">
-                  <MakerField index={i} />
+                  <TextField name={`makers.${i}`} label={`Maker ${i + 1}`} autoComplete="off" />
                 </div>
                 {count > 1 && (
                   <Button variant="outline-danger" className="mb-3" onClick={() => remove(i)}>
