@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { SizeRule } from '../api/types';
-import { cleanMakers, makersProblem, mmToInchText, readSize, sizeProblem, sizeWarning } from './size-rule';
+import { cleanMakers, makersProblem, mmToInchText, readSize, sizeProblem } from './size-rule';
 
 const mm = (inches: number) => inches * 25.4;
 const medium: SizeRule = { kind: 'perimeter', minMm: mm(160), minInclusive: true, maxMm: mm(240), maxInclusive: true };
@@ -24,29 +24,29 @@ describe('readSize', () => {
   });
 });
 
-describe('sizeWarning', () => {
+describe('sizeProblem', () => {
   it('says nothing about a quilt that fits, or a category with no rule', () => {
-    expect(sizeWarning(medium, readSize('60', '60'))).toBeNull();
-    expect(sizeWarning({ kind: 'none' }, readSize('200', '200'))).toBeNull();
-    expect(sizeWarning(medium, null)).toBeNull();
+    expect(sizeProblem(medium, readSize('60', '60'))?.message ?? null).toBeNull();
+    expect(sizeProblem({ kind: 'none' }, readSize('200', '200'))?.message ?? null).toBeNull();
+    expect(sizeProblem(medium, null)?.message ?? null).toBeNull();
   });
 
   it('says which limit a quilt breaks and by how much', () => {
-    expect(sizeWarning(medium, readSize('60 1/2', '60 1/2'))).toBe(
+    expect(sizeProblem(medium, readSize('60 1/2', '60 1/2'))?.message ?? null).toBe(
       'This category takes quilts at most 240 in around (perimeter); yours is 242 in around, 2 in over.',
     );
-    expect(sizeWarning(large, readSize('40', '40'))).toBe('This category takes quilts more than 240 in around (perimeter); yours is 160 in around, 80 in short.');
+    expect(sizeProblem(large, readSize('40', '40'))?.message ?? null).toBe('This category takes quilts more than 240 in around (perimeter); yours is 160 in around, 80 in short.');
   });
 
   it('puts exactly 240 in Medium and not in Large', () => {
-    expect(sizeWarning(medium, readSize('60', '60'))).toBeNull();
-    expect(sizeWarning(large, readSize('60', '60'))).toBe('This category takes quilts more than 240 in around (perimeter); yours is 240 in around, exactly on the limit.');
-    expect(sizeWarning(large, readSize('60 1/8', '60'))).toBeNull();
+    expect(sizeProblem(medium, readSize('60', '60'))?.message ?? null).toBeNull();
+    expect(sizeProblem(large, readSize('60', '60'))?.message ?? null).toBe('This category takes quilts more than 240 in around (perimeter); yours is 240 in around, exactly on the limit.');
+    expect(sizeProblem(large, readSize('60 1/8', '60'))?.message ?? null).toBeNull();
   });
 
   it('checks width against width and height against height', () => {
     const rule: SizeRule = { kind: 'dimensions', maxWidthMm: mm(24), maxHeightMm: mm(36), minWidthMm: null, minHeightMm: null };
-    expect(sizeWarning(rule, readSize('24', '36'))).toBeNull();
+    expect(sizeProblem(rule, readSize('24', '36'))?.message ?? null).toBeNull();
     expect(sizeProblem(rule, readSize('36', '24'))).toEqual({ field: 'widthIn', message: 'This category takes quilts at most 24 in wide; yours is 36 in, 12 in too wide.' });
     expect(sizeProblem(rule, readSize('20', '40 1/2'))).toEqual({
       field: 'heightIn',

@@ -68,11 +68,6 @@ export function sizeProblem(rule: SizeRule | undefined, size: QuiltSize | null):
   return sizeProblemMm(rule, inchesToStoredMm(size.widthIn), inchesToStoredMm(size.heightIn));
 }
 
-/** Just the message of sizeProblem. */
-export function sizeWarning(rule: SizeRule | undefined, size: QuiltSize | null): string | null {
-  return sizeProblem(rule, size)?.message ?? null;
-}
-
 /**
  * Names as the api keeps them: trimmed, inner spaces closed up, empty lines and repeats (ignoring
  * case) left out. The api counts makers after this, so "Ann" twice is one maker.
